@@ -1,0 +1,325 @@
+import { type InferSelectModel, sql } from "drizzle-orm";
+import { index, integer, primaryKey, real, sqliteTable, text, uniqueIndex } from "drizzle-orm/sqlite-core";
+
+const id = () =>
+  text("id")
+    .primaryKey()
+    .$defaultFn(() => crypto.randomUUID());
+const createdAt = () =>
+  integer("created_at", { mode: "timestamp_ms" })
+    .notNull()
+    .default(sql`(unixepoch('subsec') * 1000)`);
+
+export const ROLES = ["viewer", "contributor", "curator", "admin"] as const;
+export const MODEL_KINDS = ["markov", "eca", "ca", "supercell", "decimated-chain", "iterate"] as const;
+export const MAP_KINDS = ["decimation", "lumping", "iterate", "blocking", "projection", "coarse-graining"] as const;
+export const MAP_STATUSES = ["certified", "retracted"] as const;
+export const DERIVATIONS = ["reflect", "complement", "reflect-complement"] as const;
+export const JOB_STATUSES = ["queued", "running", "succeeded", "failed", "cancelled"] as const;
+export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
+
+export const users = sqliteTable("users", {
+  id: id(),
+  email: text("email").notNull().unique(),
+  name: text("name").notNull(),
+  passwordHash: text("password_hash"),
+  emailVerifiedAt: integer("email_verified_at", { mode: "timestamp_ms" }),
+  createdAt: createdAt(),
+});
+export type User = InferSelectModel<typeof users>;
+
+/** One-time e-mail sign-in links; only the SHA-256 of the token is stored. */
+export const signInTokens = sqliteTable("sign_in_tokens", {
+  tokenHash: text("token_hash").primaryKey(),
+  email: text("email").notNull(),
+  expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+  usedAt: integer("used_at", { mode: "timestamp_ms" }),
+  createdAt: createdAt(),
+});
+export type SignInToken = InferSelectModel<typeof signInTokens>;
+
+/** A team's shared atlas. */
+export const workspaces = sqliteTable("workspaces", {
+  id: id(),
+  slug: text("slug").notNull().unique(),
+  name: text("name").notNull(),
+  createdAt: createdAt(),
+});
+export type Workspace = InferSelectModel<typeof workspaces>;
+
+export const memberships = sqliteTable(
+  "memberships",
+  {
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: text("role", { enum: ROLES }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [primaryKey({ columns: [t.workspaceId, t.userId] }), index("memberships_user_idx").on(t.userId)],
+);
+export type Membership = InferSelectModel<typeof memberships>;
+
+/**
+ * A model (node). `address` is the content address of its canonical form, so a second submission
+ * of the same model in a workspace is the same row. Summary columns exist for search and filters.
+ */
+export const models = sqliteTable(
+  "models",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    address: text("address").notNull(),
+    kind: text("kind", { enum: MODEL_KINDS }).notNull(),
+    name: text("name").notNull(),
+    description: text("description").notNull().default(""),
+    /** Canonical JSON of the model (the core's canonical form). */
+    canonical: text("canonical").notNull(),
+    rule: integer("rule"),
+    alphabet: integer("alphabet"),
+    radius: integer("radius"),
+    states: integer("states"),
+    block: integer("block"),
+    steps: integer("steps"),
+    symmetryClass: integer("symmetry_class"),
+    baseModelId: text("base_model_id"),
+    /** JSON array of strings. */
+    tags: text("tags").notNull().default("[]"),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("models_workspace_address_uq").on(t.workspaceId, t.address),
+    index("models_workspace_kind_idx").on(t.workspaceId, t.kind),
+    index("models_workspace_rule_idx").on(t.workspaceId, t.rule),
+  ],
+);
+export type Model = InferSelectModel<typeof models>;
+
+/** Certificates by content address (`sha256:<hex>` of the RFC 8785 form). Global and immutable. */
+export const certificates = sqliteTable("certificates", {
+  address: text("address").primaryKey(),
+  kind: text("kind").notNull(),
+  formatVersion: integer("format_version").notNull(),
+  body: text("body").notNull(),
+  checkerVersion: text("checker_version").notNull(),
+  verifiedAt: integer("verified_at", { mode: "timestamp_ms" }).notNull(),
+  createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+  createdAt: createdAt(),
+});
+export type Certificate = InferSelectModel<typeof certificates>;
+
+/** Maps (edges). Never deleted: a curator retracts with a reason. */
+export const maps = sqliteTable(
+  "maps",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    sourceModelId: text("source_model_id")
+      .notNull()
+      .references(() => models.id),
+    targetModelId: text("target_model_id")
+      .notNull()
+      .references(() => models.id),
+    kind: text("kind", { enum: MAP_KINDS }).notNull(),
+    block: integer("block"),
+    steps: integer("steps"),
+    summary: text("summary").notNull(),
+    certificateAddress: text("certificate_address")
+      .notNull()
+      .references(() => certificates.address),
+    authorId: text("author_id").references(() => users.id, { onDelete: "set null" }),
+    status: text("status", { enum: MAP_STATUSES }).notNull().default("certified"),
+    retractedReason: text("retracted_reason"),
+    retractedBy: text("retracted_by").references(() => users.id, { onDelete: "set null" }),
+    retractedAt: integer("retracted_at", { mode: "timestamp_ms" }),
+    derivedFromMapId: text("derived_from_map_id"),
+    derivation: text("derivation", { enum: DERIVATIONS }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("maps_workspace_certificate_uq").on(t.workspaceId, t.certificateAddress),
+    index("maps_source_idx").on(t.workspaceId, t.sourceModelId),
+    index("maps_target_idx").on(t.workspaceId, t.targetModelId),
+    index("maps_kind_idx").on(t.workspaceId, t.kind),
+  ],
+);
+export type AtlasMap = InferSelectModel<typeof maps>;
+
+/** A chain of maps (a proof) with its composite certificate. */
+export const chains = sqliteTable(
+  "chains",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    compositeCertificateAddress: text("composite_certificate_address")
+      .notNull()
+      .references(() => certificates.address),
+    /** "links" (each link verified and matched) or "links+composite" (also checked directly). */
+    verification: text("verification", { enum: ["links", "links+composite"] }).notNull(),
+    authorId: text("author_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("chains_workspace_composite_uq").on(t.workspaceId, t.compositeCertificateAddress)],
+);
+export type Chain = InferSelectModel<typeof chains>;
+
+export const chainLinks = sqliteTable(
+  "chain_links",
+  {
+    chainId: text("chain_id")
+      .notNull()
+      .references(() => chains.id, { onDelete: "cascade" }),
+    position: integer("position").notNull(),
+    mapId: text("map_id")
+      .notNull()
+      .references(() => maps.id),
+  },
+  (t) => [primaryKey({ columns: [t.chainId, t.position] })],
+);
+export type ChainLink = InferSelectModel<typeof chainLinks>;
+
+/** A finished search, stored so that negative results ("none up to block N") can be cited. */
+export const searchRecords = sqliteTable(
+  "search_records",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    modelId: text("model_id")
+      .notNull()
+      .references(() => models.id),
+    kind: text("kind").notNull(),
+    maxBlock: integer("max_block"),
+    algorithm: text("algorithm").notNull(),
+    algorithmVersion: text("algorithm_version").notNull(),
+    /** JSON: what the search covered (rule, block sizes, kind of projection, bounds). */
+    coverage: text("coverage").notNull(),
+    /** JSON: what it found (counts, targets), possibly empty. */
+    outcome: text("outcome").notNull(),
+    found: integer("found").notNull(),
+    jobId: text("job_id"),
+    createdBy: text("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("search_records_model_idx").on(t.workspaceId, t.modelId)],
+);
+export type SearchRecord = InferSelectModel<typeof searchRecords>;
+
+export const watches = sqliteTable(
+  "watches",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    modelId: text("model_id")
+      .notNull()
+      .references(() => models.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("watches_user_model_uq").on(t.userId, t.modelId), index("watches_model_idx").on(t.modelId)],
+);
+export type Watch = InferSelectModel<typeof watches>;
+
+/** Mail to send, written in the same transaction as the event that caused it. */
+export const notificationOutbox = sqliteTable(
+  "notification_outbox",
+  {
+    id: id(),
+    workspaceId: text("workspace_id").references(() => workspaces.id, { onDelete: "cascade" }),
+    userId: text("user_id").references(() => users.id, { onDelete: "cascade" }),
+    toAddress: text("to_address").notNull(),
+    subject: text("subject").notNull(),
+    body: text("body").notNull(),
+    mapId: text("map_id"),
+    status: text("status", { enum: OUTBOX_STATUSES }).notNull().default("pending"),
+    attempts: integer("attempts").notNull().default(0),
+    lastError: text("last_error"),
+    sentAt: integer("sent_at", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("outbox_status_idx").on(t.status)],
+);
+export type OutboxMessage = InferSelectModel<typeof notificationOutbox>;
+
+export const jobs = sqliteTable(
+  "jobs",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    ownerId: text("owner_id").references(() => users.id, { onDelete: "set null" }),
+    kind: text("kind").notNull(),
+    /** JSON parameters, validated by the job kind's zod schema. */
+    params: text("params").notNull(),
+    status: text("status", { enum: JOB_STATUSES }).notNull().default("queued"),
+    progress: real("progress").notNull().default(0),
+    currentItem: text("current_item"),
+    result: text("result"),
+    error: text("error"),
+    attempts: integer("attempts").notNull().default(0),
+    cancelRequested: integer("cancel_requested", { mode: "boolean" }).notNull().default(false),
+    createdAt: createdAt(),
+    startedAt: integer("started_at", { mode: "timestamp_ms" }),
+    finishedAt: integer("finished_at", { mode: "timestamp_ms" }),
+  },
+  (t) => [index("jobs_status_idx").on(t.status), index("jobs_owner_idx").on(t.ownerId, t.status)],
+);
+export type Job = InferSelectModel<typeof jobs>;
+
+/** Personal API tokens: stored as SHA-256, scoped to one workspace and a role no higher than the owner's. */
+export const apiTokens = sqliteTable(
+  "api_tokens",
+  {
+    id: id(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    /** The first characters of the token, shown so that a person can tell tokens apart. */
+    prefix: text("prefix").notNull(),
+    role: text("role", { enum: ROLES }).notNull(),
+    lastUsedAt: integer("last_used_at", { mode: "timestamp_ms" }),
+    revokedAt: integer("revoked_at", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("api_tokens_user_idx").on(t.userId)],
+);
+export type ApiToken = InferSelectModel<typeof apiTokens>;
+
+export const auditEvents = sqliteTable(
+  "audit_events",
+  {
+    id: id(),
+    workspaceId: text("workspace_id").references(() => workspaces.id, { onDelete: "cascade" }),
+    actorId: text("actor_id").references(() => users.id, { onDelete: "set null" }),
+    action: text("action").notNull(),
+    subjectType: text("subject_type").notNull(),
+    subjectId: text("subject_id").notNull(),
+    /** JSON detail. */
+    detail: text("detail").notNull().default("{}"),
+    createdAt: createdAt(),
+  },
+  (t) => [index("audit_workspace_idx").on(t.workspaceId, t.createdAt)],
+);
+export type AuditEvent = InferSelectModel<typeof auditEvents>;

@@ -1,0 +1,38 @@
+import { z } from "zod";
+
+/**
+ * The environment, read once and validated. Everything has an embedded default so that a fresh
+ * clone runs with no configuration; production sets the secrets and the SMTP host.
+ */
+const EnvSchema = z.object({
+  NODE_ENV: z.enum(["development", "production", "test"]).default("development"),
+  DATABASE_URL: z.string().min(1).default("file:data/squarely.db"),
+  DATABASE_AUTH_TOKEN: z.string().optional(),
+  AUTH_SECRET: z.string().min(16).default("squarely-local-development-secret-change-me"),
+  APP_URL: z.string().url().default("http://localhost:3000"),
+  SMTP_HOST: z.string().default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().positive().default(2525),
+  SMTP_USER: z.string().optional(),
+  SMTP_PASS: z.string().optional(),
+  SMTP_SECURE: z.enum(["true", "false"]).default("false").transform((v) => v === "true"),
+  MAIL_FROM: z.string().default("Squarely <atlas@squarely.local>"),
+  /** Start the local SMTP catcher inside the app process (demo, development and tests). */
+  MAIL_CATCHER: z.enum(["on", "off"]).default("on"),
+  /** Worker threads that run background jobs inside the app process. */
+  JOB_WORKERS: z.coerce.number().int().min(0).max(16).default(2),
+  /** Jobs one user may have running or queued at once. */
+  JOBS_PER_USER: z.coerce.number().int().min(1).max(100).default(4),
+});
+
+export type Env = z.infer<typeof EnvSchema>;
+
+function readEnv(): Env {
+  const parsed = EnvSchema.safeParse(process.env);
+  if (!parsed.success) {
+    const fields = parsed.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; ");
+    throw new Error(`Invalid environment: ${fields}`);
+  }
+  return parsed.data;
+}
+
+export const env: Env = readEnv();
