@@ -11,7 +11,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: "unit",
-          include: ["lib/**/*.test.ts", "cli/**/*.test.ts"],
+          include: ["lib/**/*.test.ts", "cli/**/*.test.ts", "components/**/*.test.ts"],
           environment: "node",
           testTimeout: 60_000,
         },
