@@ -18,6 +18,8 @@ const EnvSchema = z.object({
   MAIL_FROM: z.string().default("Squarely <atlas@squarely.local>"),
   /** Start the local SMTP catcher inside the app process (demo, development and tests). */
   MAIL_CATCHER: z.enum(["on", "off"]).default("on"),
+  /** Where the catcher keeps caught messages (one JSON file each) for the /dev/mail page and tests. */
+  MAIL_CATCHER_DIR: z.string().min(1).default("data/mail"),
   /** Worker threads that run background jobs inside the app process. */
   JOB_WORKERS: z.coerce.number().int().min(0).max(16).default(2),
   /** Jobs one user may have running or queued at once. */
