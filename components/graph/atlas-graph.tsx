@@ -1,0 +1,87 @@
+"use client";
+
+import { useMemo } from "react";
+import { useRouter } from "next/navigation";
+import ReactFlow, {
+  Background,
+  Controls,
+  Handle,
+  MarkerType,
+  Position,
+  type Edge,
+  type Node,
+  type NodeProps,
+} from "reactflow";
+import "reactflow/dist/style.css";
+import type { GraphLayout, PositionedNode } from "./types";
+
+type NodeData = Pick<PositionedNode, "label" | "detail" | "href" | "width" | "height">;
+
+function AtlasNode({ data }: NodeProps<NodeData>) {
+  return (
+    <div
+      className="flex flex-col justify-center rounded-md border border-stone-400 bg-white px-2 text-center shadow-sm hover:border-stone-700"
+      style={{ width: data.width, height: data.height }}
+    >
+      <Handle type="target" position={Position.Top} className="!h-1.5 !w-1.5 !bg-stone-500" />
+      <span className="truncate font-mono text-xs font-semibold text-stone-900">{data.label}</span>
+      {data.detail ? <span className="truncate text-[10px] text-stone-500">{data.detail}</span> : null}
+      <Handle type="source" position={Position.Bottom} className="!h-1.5 !w-1.5 !bg-stone-500" />
+    </div>
+  );
+}
+
+const nodeTypes = { atlas: AtlasNode };
+
+/**
+ * Draws a laid-out atlas (see `layoutGraph`); the layout is computed on the server so the client
+ * only renders. Clicking a node or an edge opens its page.
+ */
+export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; height?: number }) {
+  const router = useRouter();
+  const nodes = useMemo<Node<NodeData>[]>(
+    () =>
+      layout.nodes.map((n) => ({
+        id: n.id,
+        type: "atlas",
+        position: { x: n.x, y: n.y },
+        data: { label: n.label, detail: n.detail, href: n.href, width: n.width, height: n.height },
+        ariaLabel: n.detail ? `${n.label} (${n.detail})` : n.label,
+      })),
+    [layout.nodes],
+  );
+  const edges = useMemo<Edge<{ href?: string }>[]>(
+    () =>
+      layout.edges.map((e) => ({
+        id: e.id,
+        source: e.source,
+        target: e.target,
+        label: e.label,
+        data: { href: e.href },
+        markerEnd: { type: MarkerType.ArrowClosed, width: 16, height: 16 },
+        style: e.retracted ? { strokeDasharray: "4 3", stroke: "#a8a29e" } : { stroke: "#44403c" },
+        labelStyle: { fontSize: 10, fontFamily: "var(--font-mono, monospace)" },
+        labelBgPadding: [3, 1] as [number, number],
+      })),
+    [layout.edges],
+  );
+
+  return (
+    <div className="rounded-lg border border-stone-300 bg-stone-50" style={{ height }}>
+      <ReactFlow
+        nodes={nodes}
+        edges={edges}
+        nodeTypes={nodeTypes}
+        nodesDraggable={false}
+        nodesConnectable={false}
+        fitView
+        minZoom={0.1}
+        onNodeClick={(_, node) => node.data.href && router.push(node.data.href)}
+        onEdgeClick={(_, edge) => edge.data?.href && router.push(edge.data.href)}
+      >
+        <Background gap={24} color="#e7e5e4" />
+        <Controls showInteractive={false} />
+      </ReactFlow>
+    </div>
+  );
+}
