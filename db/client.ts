@@ -15,7 +15,9 @@ export function createDatabase(url: string, authToken?: string) {
     const path = url.slice("file:".length);
     if (path && path !== ":memory:") mkdirSync(dirname(path), { recursive: true });
   }
-  const client = createClient({ url, authToken });
+  // Several connections of one process share a file (a transaction holds its own), so a writer
+  // waits for the lock instead of failing at once with SQLITE_BUSY; remote servers ignore this.
+  const client = createClient({ url, authToken, timeout: 5000 });
   const db = drizzle(client, { schema });
   return Object.assign(db, { $client: client });
 }
