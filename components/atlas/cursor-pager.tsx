@@ -1,0 +1,24 @@
+import Link from "next/link";
+import { atlasHref, type AtlasFilters } from "./atlasFilters";
+
+/** Forward-only cursor pagination: the next page, and a way back to the first. */
+export function CursorPager({ filters, nextCursor, base = "/atlas" }: { filters: AtlasFilters; nextCursor: string | null; base?: string }) {
+  const { cursor, ...rest } = filters;
+  if (!cursor && !nextCursor) return null;
+  return (
+    <nav aria-label="Pages" className="flex items-center justify-between border-t border-stone-200 pt-3 text-sm">
+      {cursor ? (
+        <Link href={atlasHref(rest, base)} className="text-stone-700 underline-offset-2 hover:underline">
+          ← First page
+        </Link>
+      ) : (
+        <span />
+      )}
+      {nextCursor ? (
+        <Link href={atlasHref({ ...rest, cursor: nextCursor }, base)} className="font-medium text-stone-900 underline-offset-2 hover:underline">
+          Next page →
+        </Link>
+      ) : null}
+    </nav>
+  );
+}

@@ -1,0 +1,56 @@
+import Link from "next/link";
+import { MapKindBadge, StatusBadge } from "./map-badges";
+
+export type MapRow = {
+  id: string;
+  kind: string;
+  block: number | null;
+  steps: number | null;
+  summary: string;
+  status: "certified" | "retracted";
+  derivation?: string | null;
+  /** The model at the other end from the page's model. */
+  other: { id: string; name: string };
+};
+
+/** Maps from or to one model: the other end, kind, block size, status. */
+export function MapTable({ rows, otherHeading, empty }: { rows: MapRow[]; otherHeading: string; empty: string }) {
+  if (rows.length === 0) return <p className="text-sm text-stone-500">{empty}</p>;
+  return (
+    <table className="w-full border-collapse text-sm">
+      <thead>
+        <tr className="border-b border-stone-300 text-left text-xs text-stone-500">
+          <th scope="col" className="py-1 pr-3 font-medium">{otherHeading}</th>
+          <th scope="col" className="py-1 pr-3 font-medium">Map</th>
+          <th scope="col" className="py-1 pr-3 font-medium">Status</th>
+          <th scope="col" className="py-1 font-medium">
+            <span className="sr-only">Certificate</span>
+          </th>
+        </tr>
+      </thead>
+      <tbody>
+        {rows.map((row) => (
+          <tr key={row.id} className="border-b border-stone-100 align-top">
+            <td className="py-1.5 pr-3">
+              <Link href={`/atlas/models/${row.other.id}`} className="font-medium text-stone-900 underline-offset-2 hover:underline">
+                {row.other.name}
+              </Link>
+            </td>
+            <td className="py-1.5 pr-3">
+              <MapKindBadge kind={row.kind} block={row.block} steps={row.steps} />
+              {row.derivation ? <span className="ml-1 text-xs text-stone-500">by {row.derivation}</span> : null}
+            </td>
+            <td className="py-1.5 pr-3">
+              <StatusBadge status={row.status} />
+            </td>
+            <td className="py-1.5 text-right">
+              <Link href={`/atlas/maps/${row.id}`} className="text-xs text-stone-600 underline-offset-2 hover:underline">
+                certificate →
+              </Link>
+            </td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
