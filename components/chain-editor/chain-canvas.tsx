@@ -1,0 +1,69 @@
+"use client";
+
+import { useMemo } from "react";
+import ReactFlow, { Background, Handle, MarkerType, Position, type Edge, type Node, type NodeProps } from "reactflow";
+import "reactflow/dist/style.css";
+import type { CanvasEdge, CanvasNode } from "./chainCanvas";
+
+function ModelNode({ data }: NodeProps<{ label: string; broken: boolean }>) {
+  return (
+    <div
+      className={`w-40 rounded-md border-2 bg-white px-2 py-2 text-center font-mono text-xs font-semibold ${
+        data.broken ? "border-red-600 text-red-800" : "border-stone-400 text-stone-900"
+      }`}
+    >
+      <Handle type="target" position={Position.Left} className="!bg-stone-500" />
+      {data.label}
+      <Handle type="source" position={Position.Right} className="!bg-stone-500" />
+    </div>
+  );
+}
+
+const nodeTypes = { model: ModelNode };
+
+/** The chain as a row of models joined by its links; breaks drawn as red dashed gaps. */
+export function ChainCanvas({ nodes, edges }: { nodes: CanvasNode[]; edges: CanvasEdge[] }) {
+  const flowNodes = useMemo<Node[]>(
+    () => nodes.map((n) => ({ id: n.id, type: "model", position: { x: n.x, y: n.y }, data: { label: n.label, broken: n.broken } })),
+    [nodes],
+  );
+  const flowEdges = useMemo<Edge[]>(
+    () =>
+      edges.map((e) => {
+        const colour = e.problem ? "#b91c1c" : "#44403c";
+        return {
+          id: e.id,
+          source: e.source,
+          target: e.target,
+          label: e.label,
+          type: e.type === "gap" ? "straight" : "default",
+          animated: false,
+          markerEnd: e.type === "link" ? { type: MarkerType.ArrowClosed, color: colour } : undefined,
+          style: { stroke: colour, strokeWidth: e.type === "gap" ? 2 : 1.5, strokeDasharray: e.type === "gap" ? "6 4" : undefined },
+          labelStyle: { fontSize: 11, fill: colour, fontWeight: e.problem ? 600 : 400 },
+        };
+      }),
+    [edges],
+  );
+  return (
+    <div className="h-72 rounded-lg border border-stone-300 bg-stone-50" aria-label="Chain diagram">
+      {nodes.length === 0 ? (
+        <p className="flex h-full items-center justify-center text-sm text-stone-500">
+          Add certified maps from the list to start a chain.
+        </p>
+      ) : (
+        <ReactFlow
+          nodes={flowNodes}
+          edges={flowEdges}
+          nodeTypes={nodeTypes}
+          nodesDraggable={false}
+          nodesConnectable={false}
+          fitView
+          fitViewOptions={{ padding: 0.25, maxZoom: 1.2 }}
+        >
+          <Background gap={24} color="#e7e5e4" />
+        </ReactFlow>
+      )}
+    </div>
+  );
+}
