@@ -1,6 +1,6 @@
 import type { AtlasFilters, FilterProblem } from "./atlasFilters";
 
-const input = "w-full rounded border border-stone-300 bg-white px-2 py-1 text-sm focus:border-stone-600 focus:outline-none";
+const input = "w-full rounded border border-line-strong bg-paper-raised px-2 py-1 text-sm focus:border-tide-600 focus:outline-none";
 
 function Field({
   name,
@@ -16,12 +16,12 @@ function Field({
   const problem = problems.find((p) => p.field === name);
   return (
     <div className="flex min-w-0 flex-col gap-0.5">
-      <label htmlFor={`filter-${name}`} className="text-xs font-medium text-stone-600">
+      <label htmlFor={`filter-${name}`} className="text-xs font-medium text-ink-faint">
         {label}
       </label>
       {children}
       {problem ? (
-        <p id={`filter-${name}-error`} className="text-xs text-red-700" aria-live="polite">
+        <p id={`filter-${name}-error`} className="text-xs text-brick-700" aria-live="polite">
           {label} {problem.message}
         </p>
       ) : null}
@@ -47,7 +47,7 @@ export function AtlasFilterForm({
   const described = (name: keyof AtlasFilters) =>
     problems.some((p) => p.field === name) ? { "aria-describedby": `filter-${name}-error`, "aria-invalid": true } : {};
   return (
-    <form method="get" action="/atlas" role="search" className="grid grid-cols-2 gap-3 rounded-lg border border-stone-200 bg-white p-3 sm:grid-cols-4 lg:grid-cols-8">
+    <form method="get" action="/atlas" role="search" className="grid grid-cols-2 gap-3 rounded-lg border border-line bg-paper-raised p-3 sm:grid-cols-4 lg:grid-cols-8">
       <div className="col-span-2">
         <Field name="q" label="Name" problems={problems}>
           <input id="filter-q" name="q" defaultValue={filters.q} placeholder="e.g. ECA 146, weather" className={input} {...described("q")} />
@@ -86,10 +86,10 @@ export function AtlasFilterForm({
         </select>
       </Field>
       <div className="col-span-2 flex items-end gap-2 sm:col-span-4 lg:col-span-8">
-        <button type="submit" className="rounded bg-stone-800 px-3 py-1 text-sm font-medium text-white hover:bg-stone-700">
+        <button type="submit" className="rounded bg-tide-700 px-3 py-1 text-sm font-medium text-paper-raised hover:bg-tide-800">
           Search
         </button>
-        <a href="/atlas" className="px-2 py-1 text-sm text-stone-600 underline-offset-2 hover:underline">
+        <a href="/atlas" className="px-2 py-1 text-sm text-ink-faint underline-offset-2 hover:underline">
           Clear filters
         </a>
       </div>

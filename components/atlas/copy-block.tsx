@@ -9,7 +9,7 @@ export function CopyBlock({ text, label, maxHeight = "16rem" }: { text: string; 
     <div className="relative">
       <button
         type="button"
-        className="absolute right-2 top-2 rounded border border-stone-300 bg-white px-2 py-0.5 text-xs text-stone-700 hover:bg-stone-100"
+        className="absolute right-2 top-2 rounded border border-line-strong bg-paper-raised px-2 py-0.5 text-xs text-ink-soft hover:bg-tide-50"
         aria-label={`Copy ${label}`}
         onClick={async () => {
           await navigator.clipboard.writeText(text);
@@ -20,7 +20,7 @@ export function CopyBlock({ text, label, maxHeight = "16rem" }: { text: string; 
         {copied ? "Copied" : "Copy"}
       </button>
       <pre
-        className="overflow-auto rounded-md border border-stone-200 bg-stone-50 p-3 pr-16 font-mono text-xs leading-relaxed text-stone-800"
+        className="overflow-auto rounded-md border border-line bg-paper p-3 pr-16 font-mono text-xs leading-relaxed text-ink-soft"
         style={{ maxHeight }}
         aria-label={label}
       >

@@ -6,16 +6,16 @@ export function CursorPager({ filters, nextCursor, base = "/atlas" }: { filters:
   const { cursor, ...rest } = filters;
   if (!cursor && !nextCursor) return null;
   return (
-    <nav aria-label="Pages" className="flex items-center justify-between border-t border-stone-200 pt-3 text-sm">
+    <nav aria-label="Pages" className="flex items-center justify-between border-t border-line pt-3 text-sm">
       {cursor ? (
-        <Link href={atlasHref(rest, base)} className="text-stone-700 underline-offset-2 hover:underline">
+        <Link href={atlasHref(rest, base)} className="text-ink-soft underline-offset-2 hover:underline">
           ← First page
         </Link>
       ) : (
         <span />
       )}
       {nextCursor ? (
-        <Link href={atlasHref({ ...rest, cursor: nextCursor }, base)} className="font-medium text-stone-900 underline-offset-2 hover:underline">
+        <Link href={atlasHref({ ...rest, cursor: nextCursor }, base)} className="font-medium text-ink underline-offset-2 hover:underline">
           Next page →
         </Link>
       ) : null}

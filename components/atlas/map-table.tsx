@@ -15,11 +15,11 @@ export type MapRow = {
 
 /** Maps from or to one model: the other end, kind, block size, status. */
 export function MapTable({ rows, otherHeading, empty }: { rows: MapRow[]; otherHeading: string; empty: string }) {
-  if (rows.length === 0) return <p className="text-sm text-stone-500">{empty}</p>;
+  if (rows.length === 0) return <p className="text-sm text-ink-faint">{empty}</p>;
   return (
     <table className="w-full border-collapse text-sm">
       <thead>
-        <tr className="border-b border-stone-300 text-left text-xs text-stone-500">
+        <tr className="border-b border-line-strong text-left text-xs text-ink-faint">
           <th scope="col" className="py-1 pr-3 font-medium">{otherHeading}</th>
           <th scope="col" className="py-1 pr-3 font-medium">Map</th>
           <th scope="col" className="py-1 pr-3 font-medium">Status</th>
@@ -30,21 +30,21 @@ export function MapTable({ rows, otherHeading, empty }: { rows: MapRow[]; otherH
       </thead>
       <tbody>
         {rows.map((row) => (
-          <tr key={row.id} className="border-b border-stone-100 align-top">
+          <tr key={row.id} className="border-b border-line align-top">
             <td className="py-1.5 pr-3">
-              <Link href={`/atlas/models/${row.other.id}`} className="font-medium text-stone-900 underline-offset-2 hover:underline">
+              <Link href={`/atlas/models/${row.other.id}`} className="font-medium text-ink underline-offset-2 hover:underline">
                 {row.other.name}
               </Link>
             </td>
             <td className="py-1.5 pr-3">
               <MapKindBadge kind={row.kind} block={row.block} steps={row.steps} />
-              {row.derivation ? <span className="ml-1 text-xs text-stone-500">by {row.derivation}</span> : null}
+              {row.derivation ? <span className="ml-1 text-xs text-ink-faint">by {row.derivation}</span> : null}
             </td>
             <td className="py-1.5 pr-3">
               <StatusBadge status={row.status} />
             </td>
             <td className="py-1.5 text-right">
-              <Link href={`/atlas/maps/${row.id}`} className="text-xs text-stone-600 underline-offset-2 hover:underline">
+              <Link href={`/atlas/maps/${row.id}`} className="text-xs text-ink-faint underline-offset-2 hover:underline">
                 certificate →
               </Link>
             </td>

@@ -1,7 +1,7 @@
 /** A fraction "p/q" set as a small stacked fraction; integers stay as they are. */
 function Fraction({ value }: { value: string }) {
   const [num, den] = value.split("/");
-  if (!den) return <span className={value === "0" ? "text-stone-400" : undefined}>{value}</span>;
+  if (!den) return <span className={value === "0" ? "text-ink-faint" : undefined}>{value}</span>;
   return (
     <span className="inline-flex flex-col items-center align-middle leading-none">
       <span className="px-0.5">{num}</span>
@@ -18,14 +18,14 @@ export function MatrixTable({ labels, matrix, caption }: { labels: string[]; mat
   return (
     <div className="overflow-x-auto">
       <table className="border-collapse font-mono text-sm">
-        {caption ? <caption className="mb-1 text-left font-sans text-xs text-stone-500">{caption}</caption> : null}
+        {caption ? <caption className="mb-1 text-left font-sans text-xs text-ink-faint">{caption}</caption> : null}
         <thead>
           <tr>
-            <th scope="col" className="px-2 py-1 text-xs font-normal text-stone-400">
+            <th scope="col" className="px-2 py-1 text-xs font-normal text-ink-faint">
               from \ to
             </th>
             {labels.map((label, j) => (
-              <th key={j} scope="col" className="border-b border-stone-300 px-3 py-1 text-xs font-medium text-stone-600">
+              <th key={j} scope="col" className="border-b border-line-strong px-3 py-1 text-xs font-medium text-ink-faint">
                 {label}
               </th>
             ))}
@@ -34,11 +34,11 @@ export function MatrixTable({ labels, matrix, caption }: { labels: string[]; mat
         <tbody>
           {matrix.map((row, i) => (
             <tr key={i}>
-              <th scope="row" className="border-r border-stone-300 px-2 py-1 text-right text-xs font-medium text-stone-600">
+              <th scope="row" className="border-r border-line-strong px-2 py-1 text-right text-xs font-medium text-ink-faint">
                 {labels[i] ?? i}
               </th>
               {row.map((entry, j) => (
-                <td key={j} className="px-3 py-1.5 text-center tabular-nums text-stone-900">
+                <td key={j} className="px-3 py-1.5 text-center tabular-nums text-ink">
                   <Fraction value={entry} />
                 </td>
               ))}

@@ -1,5 +1,5 @@
 function Cell({ on }: { on: boolean }) {
-  return <span className={`inline-block h-3 w-3 border border-stone-500 ${on ? "bg-stone-800" : "bg-white"}`} />;
+  return <span className={`inline-block h-3 w-3 border border-ink-soft ${on ? "bg-ink" : "bg-paper-raised"}`} />;
 }
 
 /**
@@ -13,7 +13,7 @@ export function EcaRuleTable({ rule }: { rule: number }) {
     <figure className="inline-block">
       <figcaption className="mb-2 text-sm">
         <span className="font-semibold">Rule {rule}</span>{" "}
-        <span className="font-mono text-stone-500">= {rule.toString(2).padStart(8, "0")}₂</span>
+        <span className="font-mono text-ink-faint">= {rule.toString(2).padStart(8, "0")}₂</span>
       </figcaption>
       <table className="border-collapse text-center">
         <tbody>
@@ -37,7 +37,7 @@ export function EcaRuleTable({ rule }: { rule: number }) {
           </tr>
           <tr>
             {neighbourhoods.map((n) => (
-              <td key={n} className="px-1.5 font-mono text-xs text-stone-500">
+              <td key={n} className="px-1.5 font-mono text-xs text-ink-faint">
                 {(rule >> n) & 1}
               </td>
             ))}
@@ -67,21 +67,21 @@ export function CaRuleTable({ k, r, table }: { k: number; r: number; table: numb
         <span className="font-semibold">
           k = {k}, r = {r}
         </span>{" "}
-        <span className="text-stone-500">
+        <span className="text-ink-faint">
           ({table.length} neighbourhoods, x<sub>−r</sub> most significant)
         </span>
       </figcaption>
       {table.length <= SHOWN && k <= 10 ? (
         <dl className="grid grid-cols-[repeat(auto-fill,minmax(6.5rem,1fr))] gap-x-4 gap-y-0.5 font-mono text-xs">
           {table.map((value, i) => (
-            <div key={i} className="flex justify-between border-b border-stone-100">
-              <dt className="text-stone-500">{digits(i, k, width)}</dt>
-              <dd className="font-semibold text-stone-900">{value}</dd>
+            <div key={i} className="flex justify-between border-b border-line">
+              <dt className="text-ink-faint">{digits(i, k, width)}</dt>
+              <dd className="font-semibold text-ink">{value}</dd>
             </div>
           ))}
         </dl>
       ) : (
-        <p className="max-h-40 overflow-auto break-all rounded bg-stone-100 p-2 font-mono text-xs leading-relaxed">
+        <p className="max-h-40 overflow-auto break-all rounded bg-paper p-2 font-mono text-xs leading-relaxed">
           {table.join(k > 10 ? "," : "")}
         </p>
       )}

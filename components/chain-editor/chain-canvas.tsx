@@ -8,13 +8,13 @@ import type { CanvasEdge, CanvasNode } from "./chainCanvas";
 function ModelNode({ data }: NodeProps<{ label: string; broken: boolean }>) {
   return (
     <div
-      className={`w-40 rounded-md border-2 bg-white px-2 py-2 text-center font-mono text-xs font-semibold ${
-        data.broken ? "border-red-600 text-red-800" : "border-stone-400 text-stone-900"
+      className={`w-40 rounded-md border-2 bg-paper-raised px-2 py-2 text-center font-mono text-xs font-semibold ${
+        data.broken ? "border-brick-600 text-brick-700" : "border-line-strong text-ink"
       }`}
     >
-      <Handle type="target" position={Position.Left} className="!bg-stone-500" />
+      <Handle type="target" position={Position.Left} className="!bg-ink-faint" />
       {data.label}
-      <Handle type="source" position={Position.Right} className="!bg-stone-500" />
+      <Handle type="source" position={Position.Right} className="!bg-ink-faint" />
     </div>
   );
 }
@@ -30,7 +30,7 @@ export function ChainCanvas({ nodes, edges }: { nodes: CanvasNode[]; edges: Canv
   const flowEdges = useMemo<Edge[]>(
     () =>
       edges.map((e) => {
-        const colour = e.problem ? "#b91c1c" : "#44403c";
+        const colour = e.problem ? "#b3412f" : "#46524f";
         return {
           id: e.id,
           source: e.source,
@@ -46,9 +46,9 @@ export function ChainCanvas({ nodes, edges }: { nodes: CanvasNode[]; edges: Canv
     [edges],
   );
   return (
-    <div className="h-72 rounded-lg border border-stone-300 bg-stone-50" aria-label="Chain diagram">
+    <div className="h-72 rounded-lg border border-line-strong bg-paper" aria-label="Chain diagram">
       {nodes.length === 0 ? (
-        <p className="flex h-full items-center justify-center text-sm text-stone-500">
+        <p className="flex h-full items-center justify-center text-sm text-ink-faint">
           Add certified maps from the list to start a chain.
         </p>
       ) : (
@@ -61,7 +61,7 @@ export function ChainCanvas({ nodes, edges }: { nodes: CanvasNode[]; edges: Canv
           fitView
           fitViewOptions={{ padding: 0.25, maxZoom: 1.2 }}
         >
-          <Background gap={24} color="#e7e5e4" />
+          <Background gap={24} color="#dcd8cc" />
         </ReactFlow>
       )}
     </div>

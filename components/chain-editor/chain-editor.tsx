@@ -8,7 +8,7 @@ import { idleChainState, type ChainActionState } from "./types";
 
 type Action = (state: ChainActionState, form: FormData) => Promise<ChainActionState>;
 
-const button = "rounded border border-stone-300 px-1.5 py-0.5 text-xs text-stone-700 hover:bg-stone-100 disabled:opacity-40";
+const button = "rounded border border-line-strong px-1.5 py-0.5 text-xs text-ink-soft hover:bg-tide-50 disabled:opacity-40";
 
 function linkText(link: EditorLink): string {
   return `${link.source.name} → ${link.target.name}`;
@@ -47,7 +47,7 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
   return (
     <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
       <section aria-labelledby="chain-heading" className="min-w-0 space-y-4">
-        <h2 id="chain-heading" className="text-sm font-semibold text-stone-700">
+        <h2 id="chain-heading" className="text-sm font-semibold text-ink-soft">
           The chain
         </h2>
         <ChainCanvas nodes={canvas.nodes} edges={canvas.edges} />
@@ -61,13 +61,13 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
             return (
               <li
                 key={`${link.mapId}-${i}`}
-                className={`rounded-md border p-2 ${hasProblem ? "border-red-300 bg-red-50" : "border-stone-200 bg-white"}`}
+                className={`rounded-md border p-2 ${hasProblem ? "border-brick-600 bg-brick-50" : "border-line bg-paper-raised"}`}
                 aria-describedby={hasProblem ? problemId : undefined}
               >
                 <div className="flex flex-wrap items-center gap-2">
-                  <span className="font-mono text-xs text-stone-500">{i + 1}.</span>
-                  <span className="text-sm font-medium text-stone-900">{linkText(link)}</span>
-                  <span className="font-mono text-xs text-stone-500">{kindText(link)}</span>
+                  <span className="font-mono text-xs text-ink-faint">{i + 1}.</span>
+                  <span className="text-sm font-medium text-ink">{linkText(link)}</span>
+                  <span className="font-mono text-xs text-ink-faint">{kindText(link)}</span>
                   <span className="ml-auto flex gap-1">
                     <button type="button" className={button} disabled={i === 0} onClick={() => dispatch({ type: "move", from: i, to: i - 1 })} aria-label={`Move link ${i + 1} up`}>
                       ↑
@@ -81,7 +81,7 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
                   </span>
                 </div>
                 {hasProblem ? (
-                  <ul id={problemId} className="mt-1 space-y-0.5 text-xs text-red-800" aria-live="polite">
+                  <ul id={problemId} className="mt-1 space-y-0.5 text-xs text-brick-700" aria-live="polite">
                     {brk ? (
                       <li>
                         Does not meet link {i + 2}: this link ends at <strong>{brk.expected.name}</strong>, link {i + 2} starts at{" "}
@@ -97,12 +97,12 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
           })}
         </ol>
 
-        <form action={formAction} className="space-y-3 rounded-md border border-stone-200 bg-white p-3">
+        <form action={formAction} className="space-y-3 rounded-md border border-line bg-paper-raised p-3">
           {state.links.map((link, i) => (
             <input key={i} type="hidden" name="mapId" value={link.mapId} />
           ))}
           <div className="flex flex-col gap-1">
-            <label htmlFor="chain-name" className="text-xs font-medium text-stone-600">
+            <label htmlFor="chain-name" className="text-xs font-medium text-ink-faint">
               Name of the chain
             </label>
             <input
@@ -111,18 +111,18 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
               required
               maxLength={200}
               placeholder="e.g. rule 146 onto rule 0 in two steps"
-              className="rounded border border-stone-300 px-2 py-1 text-sm"
+              className="rounded border border-line-strong px-2 py-1 text-sm"
               aria-invalid={nameError ? true : undefined}
               aria-describedby={nameError ? "chain-name-error" : undefined}
             />
             {nameError ? (
-              <p id="chain-name-error" className="text-xs text-red-700" aria-live="polite">
+              <p id="chain-name-error" className="text-xs text-brick-700" aria-live="polite">
                 {nameError}
               </p>
             ) : null}
           </div>
           {generalProblem ? (
-            <p className="text-sm text-red-700" role="alert">
+            <p className="text-sm text-brick-700" role="alert">
               {generalProblem}
             </p>
           ) : null}
@@ -130,11 +130,11 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
             <button
               type="submit"
               disabled={!check.ready || pending || !canSubmit}
-              className="rounded bg-stone-800 px-3 py-1.5 text-sm font-medium text-white hover:bg-stone-700 disabled:cursor-not-allowed disabled:bg-stone-400"
+              className="rounded bg-tide-700 px-3 py-1.5 text-sm font-medium text-paper-raised hover:bg-tide-800 disabled:cursor-not-allowed disabled:bg-line-strong"
             >
               {pending ? "Verifying…" : "Verify and store chain"}
             </button>
-            <span className="text-xs text-stone-500" aria-live="polite">
+            <span className="text-xs text-ink-faint" aria-live="polite">
               {!canSubmit
                 ? "Your role may not store chains (contributor or higher)."
                 : state.links.length === 0
@@ -148,7 +148,7 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
       </section>
 
       <aside aria-labelledby="pool-heading" className="space-y-2">
-        <h2 id="pool-heading" className="text-sm font-semibold text-stone-700">
+        <h2 id="pool-heading" className="text-sm font-semibold text-ink-soft">
           Certified maps
         </h2>
         <input
@@ -157,19 +157,19 @@ export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; a
           onChange={(e) => setFilter(e.target.value)}
           placeholder="Filter by model or kind"
           aria-label="Filter certified maps"
-          className="w-full rounded border border-stone-300 px-2 py-1 text-sm"
+          className="w-full rounded border border-line-strong px-2 py-1 text-sm"
         />
-        <label className="flex items-center gap-2 text-xs text-stone-600">
+        <label className="flex items-center gap-2 text-xs text-ink-faint">
           <input type="checkbox" checked={showAll} onChange={(e) => setShowAll(e.target.checked)} />
           Show all maps, not only those continuing the chain
         </label>
         <ul className="max-h-[32rem] space-y-1 overflow-auto pr-1" aria-label="Maps to add">
-          {offered.length === 0 ? <li className="text-sm text-stone-500">No certified map starts where the chain ends.</li> : null}
+          {offered.length === 0 ? <li className="text-sm text-ink-faint">No certified map starts where the chain ends.</li> : null}
           {offered.map((m) => (
-            <li key={m.mapId} className="flex items-center gap-2 rounded border border-stone-200 bg-white px-2 py-1">
+            <li key={m.mapId} className="flex items-center gap-2 rounded border border-line bg-paper-raised px-2 py-1">
               <div className="min-w-0 flex-1">
-                <div className="truncate text-sm text-stone-900">{linkText(m)}</div>
-                <div className="font-mono text-xs text-stone-500">{kindText(m)}</div>
+                <div className="truncate text-sm text-ink">{linkText(m)}</div>
+                <div className="font-mono text-xs text-ink-faint">{kindText(m)}</div>
               </div>
               <button type="button" className={button} onClick={() => dispatch({ type: "append", link: m })} aria-label={`Add ${linkText(m)} (${kindText(m)})`}>
                 Add

@@ -20,13 +20,13 @@ type NodeData = Pick<PositionedNode, "label" | "detail" | "href" | "width" | "he
 function AtlasNode({ data }: NodeProps<NodeData>) {
   return (
     <div
-      className="flex flex-col justify-center rounded-md border border-stone-400 bg-white px-2 text-center shadow-sm hover:border-stone-700"
+      className="flex flex-col justify-center rounded-md border border-line-strong bg-paper-raised px-2 text-center shadow-sm hover:border-tide-600"
       style={{ width: data.width, height: data.height }}
     >
-      <Handle type="target" position={Position.Top} className="!h-1.5 !w-1.5 !bg-stone-500" />
-      <span className="truncate font-mono text-xs font-semibold text-stone-900">{data.label}</span>
-      {data.detail ? <span className="truncate text-[10px] text-stone-500">{data.detail}</span> : null}
-      <Handle type="source" position={Position.Bottom} className="!h-1.5 !w-1.5 !bg-stone-500" />
+      <Handle type="target" position={Position.Top} className="!h-1.5 !w-1.5 !bg-ink-faint" />
+      <span className="truncate font-mono text-xs font-semibold text-ink">{data.label}</span>
+      {data.detail ? <span className="truncate text-[10px] text-ink-faint">{data.detail}</span> : null}
+      <Handle type="source" position={Position.Bottom} className="!h-1.5 !w-1.5 !bg-ink-faint" />
     </div>
   );
 }
@@ -59,7 +59,7 @@ export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; heig
         label: e.label,
         data: { href: e.href },
         markerEnd: { type: MarkerType.ArrowClosed, width: 16, height: 16 },
-        style: e.retracted ? { strokeDasharray: "4 3", stroke: "#a8a29e" } : { stroke: "#44403c" },
+        style: e.retracted ? { strokeDasharray: "4 3", stroke: "#bdb8a9" } : { stroke: "#46524f" },
         labelStyle: { fontSize: 10, fontFamily: "var(--font-mono, monospace)" },
         labelBgPadding: [3, 1] as [number, number],
       })),
@@ -67,7 +67,7 @@ export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; heig
   );
 
   return (
-    <div className="rounded-lg border border-stone-300 bg-stone-50" style={{ height }}>
+    <div className="rounded-lg border border-line-strong bg-paper" style={{ height }}>
       <ReactFlow
         nodes={nodes}
         edges={edges}
@@ -79,7 +79,7 @@ export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; heig
         onNodeClick={(_, node) => node.data.href && router.push(node.data.href)}
         onEdgeClick={(_, edge) => edge.data?.href && router.push(edge.data.href)}
       >
-        <Background gap={24} color="#e7e5e4" />
+        <Background gap={24} color="#dcd8cc" />
         <Controls showInteractive={false} />
       </ReactFlow>
     </div>
