@@ -3,6 +3,7 @@ import { drizzle } from "drizzle-orm/libsql";
 import { mkdirSync } from "node:fs";
 import { dirname } from "node:path";
 import * as schema from "./schema";
+import { serializeWrites } from "./serialize-writes";
 
 export type Database = ReturnType<typeof createDatabase>;
 
@@ -17,7 +18,8 @@ export function createDatabase(url: string, authToken?: string) {
   }
   // Several connections of one process share a file (a transaction holds its own), so a writer
   // waits for the lock instead of failing at once with SQLITE_BUSY; remote servers ignore this.
-  const client = createClient({ url, authToken, timeout: 5000 });
+  const opened = createClient({ url, authToken, timeout: 5000 });
+  const client = url.startsWith("file:") ? serializeWrites(opened) : opened;
   const db = drizzle(client, { schema });
   return Object.assign(db, { $client: client });
 }
