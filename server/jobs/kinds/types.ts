@@ -1,0 +1,46 @@
+import type { z } from "zod";
+import type { Database } from "@/db/client";
+import type { Job } from "@/db/schema";
+
+/** What a compute module receives inside the worker thread. */
+export type ComputeContext = {
+  onProgress: (fraction: number, item: string) => void;
+  signal: AbortSignal;
+};
+
+export type PersistInput<P> = {
+  db: Database;
+  job: Job;
+  params: P;
+  /** What `compute` returned in the worker. */
+  output: unknown;
+  onProgress: (fraction: number, item: string) => void;
+  signal: AbortSignal;
+};
+
+/**
+ * A kind of job. The heavy part (`computeModule`'s `compute`) runs in a worker thread and may use
+ * lib/ only; `persist` runs afterwards in the app process and writes what was found (certificates
+ * through the atlas's submit path, search records). What `persist` returns (or, without it, what
+ * `compute` returned) is stored as the job's result.
+ */
+export type JobKind<P = unknown> = {
+  name: string;
+  /** A short human title for lists ("ECA atlas", "Coarsest lumping"). */
+  title: string;
+  paramsSchema: z.ZodType<P>;
+  /** Path from the project root of a module exporting `compute(params: P, context: ComputeContext)`. */
+  computeModule: string;
+  /** The time bound of the compute step. */
+  timeoutMs: number;
+  /** Share of the progress bar given to compute when a persist step follows. @default 0.5 */
+  computeShare?: number;
+  persist?: (input: PersistInput<P>) => Promise<unknown>;
+  /** One line for the jobs list, from the params ("rule 110, blocks 2–3"). */
+  describe?: (params: P) => string;
+};
+
+/** Forgets the parameter type, for the registry. */
+export function defineJobKind<P>(kind: JobKind<P>): JobKind<unknown> {
+  return kind as unknown as JobKind<unknown>;
+}

@@ -1,0 +1,47 @@
+/* global AbortController */
+// The job worker thread. A plain ES module so that it loads the same way under `next start`,
+// vitest, tsx and plain node: it enables TypeScript through tsx's scoped loader and imports the
+// job kind's compute module, which depends on lib/ alone (no database, no Next).
+import { pathToFileURL } from "node:url";
+import { tsImport } from "tsx/esm/api";
+
+const modules = new Map();
+const PROGRESS_INTERVAL_MS = 100;
+
+function loadModule(file) {
+  let loading = modules.get(file);
+  if (!loading) {
+    loading = tsImport(pathToFileURL(file).href, import.meta.url);
+    modules.set(file, loading);
+  }
+  return loading;
+}
+
+/**
+ * task: { module, params, cancelFlag: SharedArrayBuffer, port: MessagePort }.
+ * The cancel flag is shared memory rather than a message, because a compute loop that never
+ * yields to the event loop would never receive a message; it reads the flag on each progress call.
+ */
+export default async function runJobTask(task) {
+  const flag = new Int32Array(task.cancelFlag);
+  const controller = new AbortController();
+  let lastPost = 0;
+  let lastFraction = -1;
+  const onProgress = (fraction, item) => {
+    if (!controller.signal.aborted && Atomics.load(flag, 0) === 1) controller.abort();
+    const now = Date.now();
+    if (now - lastPost >= PROGRESS_INTERVAL_MS || fraction - lastFraction >= 0.01 || fraction >= 1) {
+      lastPost = now;
+      lastFraction = fraction;
+      task.port.postMessage({ fraction, item: item ?? null });
+    }
+  };
+  try {
+    const mod = await loadModule(task.module);
+    if (typeof mod.compute !== "function") throw new Error(`${task.module} exports no compute(params, context)`);
+    const output = await mod.compute(task.params, { onProgress, signal: controller.signal });
+    return { output, cancelled: controller.signal.aborted || Atomics.load(flag, 0) === 1 };
+  } finally {
+    task.port.close();
+  }
+}
