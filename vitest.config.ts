@@ -27,7 +27,8 @@ export default defineConfig({
         },
       },
       {
-        resolve: { alias },
+        // End-to-end tests prepare and inspect the temporary database through the query layer too.
+        resolve: { alias: { ...alias, "server-only": fileURLToPath(new URL("./tests/support/empty.ts", import.meta.url)) } },
         test: {
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
