@@ -1,9 +1,6 @@
 import { and, asc, desc, eq, inArray, lt, or, sql } from "drizzle-orm";
-import type { Database } from "@/db/client";
 import { jobs, type Job } from "@/db/schema";
-
-/** A database or an open transaction: every query here runs on either. */
-export type Executor = Pick<Database, "select" | "insert" | "update" | "delete" | "transaction">;
+import { type Executor, getDatabase, withDb } from "./connection";
 
 export const ACTIVE_JOB_STATUSES = ["queued", "running"] as const;
 type FinishedStatus = "succeeded" | "failed" | "cancelled";
@@ -16,10 +13,9 @@ export type CreateJobResult = { ok: true; job: Job } | { ok: false; active: numb
  * cannot both slip under the bound.
  */
 export async function createJobWithinLimit(
-  db: Executor,
-  input: { workspaceId: string; ownerId: string; kind: string; params: unknown; limit: number },
+  { db = getDatabase(), ...input }: { db?: Executor } & { workspaceId: string; ownerId: string; kind: string; params: unknown; limit: number },
 ): Promise<CreateJobResult> {
-  return db.transaction(async (tx) => {
+  return withDb("queueing a job", () => db.transaction(async (tx) => {
     const [{ active }] = await tx
       .select({ active: sql<number>`count(*)` })
       .from(jobs)
@@ -35,12 +31,12 @@ export async function createJobWithinLimit(
       })
       .returning();
     return { ok: true as const, job };
-  });
+  }));
 }
 
-export async function getJob(db: Executor, input: { id: string; workspaceId?: string }): Promise<Job | null> {
+export async function getJob({ db = getDatabase(), ...input }: { db?: Executor } & { id: string; workspaceId?: string }): Promise<Job | null> {
   const where = input.workspaceId ? and(eq(jobs.id, input.id), eq(jobs.workspaceId, input.workspaceId)) : eq(jobs.id, input.id);
-  const [row] = await db.select().from(jobs).where(where).limit(1);
+  const [row] = await withDb("reading a job", () => db.select().from(jobs).where(where).limit(1));
   return row ?? null;
 }
 
@@ -48,8 +44,7 @@ export async function getJob(db: Executor, input: { id: string; workspaceId?: st
  * Newest first, paginated by an opaque cursor "<createdAt ms>:<id>" (the last row of the previous page).
  */
 export async function listJobs(
-  db: Executor,
-  input: { workspaceId: string; ownerId?: string; status?: Job["status"]; cursor?: string | null; limit?: number },
+  { db = getDatabase(), ...input }: { db?: Executor } & { workspaceId: string; ownerId?: string; status?: Job["status"]; cursor?: string | null; limit?: number },
 ): Promise<{ items: Job[]; nextCursor: string | null }> {
   const limit = input.limit ?? 20;
   const conditions = [eq(jobs.workspaceId, input.workspaceId)];
@@ -60,12 +55,14 @@ export async function listJobs(
     const before = or(lt(jobs.createdAt, cursor.at), and(eq(jobs.createdAt, cursor.at), lt(jobs.id, cursor.id)));
     if (before) conditions.push(before);
   }
-  const rows = await db
-    .select()
-    .from(jobs)
-    .where(and(...conditions))
-    .orderBy(desc(jobs.createdAt), desc(jobs.id))
-    .limit(limit + 1);
+  const rows = await withDb("listing jobs", () =>
+    db
+      .select()
+      .from(jobs)
+      .where(and(...conditions))
+      .orderBy(desc(jobs.createdAt), desc(jobs.id))
+      .limit(limit + 1),
+  );
   const items = rows.slice(0, limit);
   const last = items[items.length - 1];
   const nextCursor = rows.length > limit && last ? `${last.createdAt.getTime()}:${last.id}` : null;
@@ -79,7 +76,7 @@ function parseCursor(cursor: string | null | undefined): { at: Date; id: string 
 }
 
 /** Oldest queued jobs first (FIFO), at most `limit`. */
-export async function listQueuedJobs(db: Executor, input: { limit: number }): Promise<Job[]> {
+export async function listQueuedJobs({ db = getDatabase(), ...input }: { db?: Executor } & { limit: number }): Promise<Job[]> {
   return db.select().from(jobs).where(eq(jobs.status, "queued")).orderBy(asc(jobs.createdAt), asc(jobs.id)).limit(input.limit);
 }
 
@@ -87,7 +84,7 @@ export async function listQueuedJobs(db: Executor, input: { limit: number }): Pr
  * Moves one job from queued to running and counts the attempt. Returns null when another runner
  * (or a cancel) got there first: the status condition makes the claim atomic.
  */
-export async function claimJob(db: Executor, input: { id: string; now?: Date }): Promise<Job | null> {
+export async function claimJob({ db = getDatabase(), ...input }: { db?: Executor } & { id: string; now?: Date }): Promise<Job | null> {
   const [row] = await db
     .update(jobs)
     .set({ status: "running", attempts: sql`${jobs.attempts} + 1`, startedAt: input.now ?? new Date(), error: null })
@@ -97,8 +94,7 @@ export async function claimJob(db: Executor, input: { id: string; now?: Date }):
 }
 
 export async function updateJobProgress(
-  db: Executor,
-  input: { id: string; progress: number; currentItem: string | null },
+  { db = getDatabase(), ...input }: { db?: Executor } & { id: string; progress: number; currentItem: string | null },
 ): Promise<void> {
   await db
     .update(jobs)
@@ -108,8 +104,7 @@ export async function updateJobProgress(
 
 /** Records the end of a running job; a job already finished (e.g. cancelled while queued) is left alone. */
 export async function finishJob(
-  db: Executor,
-  input: {
+  { db = getDatabase(), ...input }: { db?: Executor } & {
     id: string;
     status: FinishedStatus;
     result?: unknown;
@@ -136,8 +131,8 @@ export async function finishJob(
  * A cancel: a queued job is cancelled at once; a running one is flagged and its runner stops it.
  * Returns the row after the change, or null when the job does not exist.
  */
-export async function requestJobCancel(db: Executor, input: { id: string; now?: Date }): Promise<Job | null> {
-  return db.transaction(async (tx) => {
+export async function requestJobCancel({ db = getDatabase(), ...input }: { db?: Executor } & { id: string; now?: Date }): Promise<Job | null> {
+  return withDb("cancelling a job", () => db.transaction(async (tx) => {
     const [cancelled] = await tx
       .update(jobs)
       .set({ status: "cancelled", cancelRequested: true, finishedAt: input.now ?? new Date(), error: "cancelled before it started" })
@@ -152,11 +147,11 @@ export async function requestJobCancel(db: Executor, input: { id: string; now?: 
     if (flagged) return flagged;
     const [row] = await tx.select().from(jobs).where(eq(jobs.id, input.id)).limit(1);
     return row ?? null;
-  });
+  }));
 }
 
 /** Ids among `ids` whose cancel was requested (the runner polls this for the jobs it runs). */
-export async function listCancelRequested(db: Executor, input: { ids: string[] }): Promise<string[]> {
+export async function listCancelRequested({ db = getDatabase(), ...input }: { db?: Executor } & { ids: string[] }): Promise<string[]> {
   if (input.ids.length === 0) return [];
   const rows = await db
     .select({ id: jobs.id })
@@ -171,8 +166,7 @@ export async function listCancelRequested(db: Executor, input: { ids: string[] }
  * a job that kills its process cannot loop forever.
  */
 export async function recoverInterruptedJobs(
-  db: Executor,
-  input: { maxAttempts: number; now?: Date },
+  { db = getDatabase(), ...input }: { db?: Executor } & { maxAttempts: number; now?: Date },
 ): Promise<{ requeued: string[]; failed: string[]; cancelled: string[] }> {
   return db.transaction(async (tx) => {
     const running = await tx.select().from(jobs).where(eq(jobs.status, "running"));

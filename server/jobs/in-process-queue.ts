@@ -32,7 +32,8 @@ export function createInProcessQueue(options: InProcessQueueOptions): JobQueue {
           details: parsed.error.issues.map((i) => ({ path: ["params", ...i.path.map(String)].join("."), message: i.message })),
         });
       }
-      const created = await createJobWithinLimit(db, {
+      const created = await createJobWithinLimit({
+        db,
         workspaceId: input.workspaceId,
         ownerId: input.ownerId,
         kind: kind.name,
@@ -51,25 +52,25 @@ export function createInProcessQueue(options: InProcessQueueOptions): JobQueue {
     },
 
     async cancel({ jobId, workspaceId, actor }) {
-      const job = await getJob(db, { id: jobId, workspaceId });
+      const job = await getJob({ db, id: jobId, workspaceId });
       if (!job) throw new AppError("not_found", `No job ${jobId} in this workspace.`, { field: "id" });
       const own = job.ownerId === actor.userId && can(actor.role, "job:cancel-own");
       if (!own && !can(actor.role, "job:cancel-any")) {
         throw new AppError("forbidden", "Only the job's owner or an admin may cancel it.");
       }
       if (job.status !== "queued" && job.status !== "running") return toJobView(job);
-      const updated = await requestJobCancel(db, { id: jobId });
+      const updated = await requestJobCancel({ db, id: jobId });
       wakeJobRunner();
       return toJobView(updated ?? job);
     },
 
     async get({ jobId, workspaceId }) {
-      const job = await getJob(db, { id: jobId, workspaceId });
+      const job = await getJob({ db, id: jobId, workspaceId });
       return job ? toJobView(job) : null;
     },
 
     async list(input) {
-      const page = await listJobs(db, input);
+      const page = await listJobs({ db, ...input });
       return { items: page.items.map(toJobView), nextCursor: page.nextCursor };
     },
   };

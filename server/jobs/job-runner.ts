@@ -64,12 +64,12 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
   }
 
   async function tickOnce(): Promise<void> {
-    const cancelled = await listCancelRequested(db, { ids: [...running.keys()] });
+    const cancelled = await listCancelRequested({ db, ids: [...running.keys()] });
     for (const id of cancelled) running.get(id)?.cancel.abort();
     const free = workers - running.size;
     if (free <= 0) return;
-    for (const candidate of await listQueuedJobs(db, { limit: free })) {
-      const job = await claimJob(db, { id: candidate.id });
+    for (const candidate of await listQueuedJobs({ db, limit: free })) {
+      const job = await claimJob({ db, id: candidate.id });
       if (!job) continue;
       const entry: Running = { job, cancel: new AbortController(), done: Promise.resolve() };
       entry.done = execute(entry).finally(() => {
@@ -85,18 +85,18 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
     try {
       const kind = getJobKind(job.kind);
       if (!kind) {
-        await finishJob(db, { id: job.id, status: "failed", error: `unknown job kind "${job.kind}"` });
+        await finishJob({ db, id: job.id, status: "failed", error: `unknown job kind "${job.kind}"` });
         return;
       }
       const parsed = kind.paramsSchema.safeParse(JSON.parse(job.params));
       if (!parsed.success) {
-        await finishJob(db, { id: job.id, status: "failed", error: `invalid parameters: ${parsed.error.issues[0].message}` });
+        await finishJob({ db, id: job.id, status: "failed", error: `invalid parameters: ${parsed.error.issues[0].message}` });
         return;
       }
       await runKind(entry, kind, parsed.data);
     } catch (err) {
       console.error(`job ${job.id} (${job.kind}) failed:`, err);
-      await finishJob(db, { id: job.id, status: "failed", error: publicMessage(err) }).catch(() => undefined);
+      await finishJob({ db, id: job.id, status: "failed", error: publicMessage(err) }).catch(() => undefined);
     }
   }
 
@@ -114,15 +114,15 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
     });
     await progress.flush();
     if (outcome.status === "timeout") {
-      await finishJob(db, { id: job.id, status: "failed", error: `stopped: exceeded its time bound of ${formatMs(outcome.timeoutMs)}` });
+      await finishJob({ db, id: job.id, status: "failed", error: `stopped: exceeded its time bound of ${formatMs(outcome.timeoutMs)}` });
       return;
     }
     if (outcome.status === "error") {
-      await finishJob(db, { id: job.id, status: "failed", error: outcome.message });
+      await finishJob({ db, id: job.id, status: "failed", error: outcome.message });
       return;
     }
     if (outcome.status === "cancelled") {
-      await finishJob(db, { id: job.id, status: "cancelled", error: "cancelled on request", result: outcome.output ?? undefined });
+      await finishJob({ db, id: job.id, status: "cancelled", error: "cancelled on request", result: outcome.output ?? undefined });
       return;
     }
     let result = outcome.output;
@@ -137,18 +137,18 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
       });
       await progress.flush();
       if (cancel.signal.aborted) {
-        await finishJob(db, { id: job.id, status: "cancelled", error: "cancelled on request while saving results", result });
+        await finishJob({ db, id: job.id, status: "cancelled", error: "cancelled on request while saving results", result });
         return;
       }
     }
-    await finishJob(db, { id: job.id, status: "succeeded", result, progress: 1 });
+    await finishJob({ db, id: job.id, status: "succeeded", result, progress: 1 });
   }
 
   async function drain(): Promise<void> {
     for (;;) {
       await tick();
       if (running.size === 0) {
-        const queued = await listQueuedJobs(db, { limit: 1 });
+        const queued = await listQueuedJobs({ db, limit: 1 });
         if (queued.length === 0) return;
         continue;
       }
@@ -180,7 +180,7 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
   };
 
   function recover() {
-    return recoverInterruptedJobs(db, { maxAttempts: MAX_JOB_ATTEMPTS });
+    return recoverInterruptedJobs({ db, maxAttempts: MAX_JOB_ATTEMPTS });
   }
 }
 
@@ -196,7 +196,7 @@ function progressWriter(db: Database, id: string) {
     const { fraction, item } = pending;
     pending = null;
     last = Date.now();
-    chain = chain.then(() => updateJobProgress(db, { id, progress: fraction, currentItem: item })).catch(() => undefined);
+    chain = chain.then(() => updateJobProgress({ db, id, progress: fraction, currentItem: item })).catch(() => undefined);
   };
   return {
     report(fraction: number, item: string | null) {

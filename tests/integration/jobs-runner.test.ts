@@ -165,7 +165,7 @@ describe("restart recovery", () => {
     const job = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
     // A runner that died: the row says running, no thread is working on it.
     const idle = createJobRunner({ db: t.db, workers: 1 });
-    expect(await claimJob(t.db, { id: job.id })).not.toBeNull();
+    expect(await claimJob({ db: t.db, id: job.id })).not.toBeNull();
 
     const first = await idle.recover();
     expect(first.requeued).toEqual([job.id]);
@@ -174,7 +174,7 @@ describe("restart recovery", () => {
     expect(row.attempts).toBe(1);
     expect(row.currentItem).toBe("re-queued after a restart interrupted it");
 
-    expect(await claimJob(t.db, { id: job.id })).not.toBeNull();
+    expect(await claimJob({ db: t.db, id: job.id })).not.toBeNull();
     const second = await idle.recover();
     expect(second.failed).toEqual([job.id]);
     row = await get(job.id);
@@ -183,7 +183,7 @@ describe("restart recovery", () => {
 
     const waiting = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
     const interrupted = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
-    await claimJob(t.db, { id: interrupted.id });
+    await claimJob({ db: t.db, id: interrupted.id });
     await idle.start();
     await idle.drain();
     expect((await get(waiting.id)).status).toBe("succeeded");
