@@ -1,0 +1,305 @@
+import "server-only";
+import { and, asc, eq, gt, inArray, ne, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/sqlite-core";
+import {
+  maps,
+  models,
+  notificationOutbox,
+  users,
+  watches,
+  type AtlasMap,
+  type DERIVATIONS,
+  type MAP_KINDS,
+} from "@/db/schema";
+import { AppError } from "@/server/errors";
+import { recordAuditEvent } from "./audit";
+import { storeCertificate, type VerifiedCertificate } from "./certificates";
+import { type Executor, getDatabase, isUniqueViolation, withDb, wrapDbError } from "./connection";
+import { decodeCursor, encodeCursor } from "./cursor";
+import { type ModelFields, upsertModel } from "./models";
+
+export type MapKind = (typeof MAP_KINDS)[number];
+export type Derivation = (typeof DERIVATIONS)[number];
+
+export type ModelRef = { id: string; address: string; kind: string; name: string; rule: number | null };
+export type MapView = AtlasMap & { source: ModelRef; target: ModelRef };
+
+/** The steps of `createCertifiedEdge`, in order; fault-injection tests stop the write after each. */
+export const EDGE_WRITE_STEPS = ["certificate", "models", "map", "audit", "outbox"] as const;
+export type EdgeWriteStep = (typeof EDGE_WRITE_STEPS)[number];
+
+export type CertifiedEdgeInput = {
+  db?: ReturnType<typeof getDatabase>;
+  workspaceId: string;
+  userId: string | null;
+  certificate: VerifiedCertificate;
+  source: ModelFields;
+  target: ModelFields;
+  map: { kind: MapKind; block?: number | null; steps?: number | null; summary: string };
+  derivedFromMapId?: string | null;
+  derivation?: Derivation | null;
+  /** Prefix of the link put in watchers' mail, e.g. "https://atlas.example.org". */
+  linkBase?: string;
+  /** Called after each step inside the transaction; a throw rolls everything back (tests only). */
+  onStep?: (step: EdgeWriteStep) => void | Promise<void>;
+};
+
+/**
+ * Writes a verified edge: the certificate, both models, the map, an audit event and one outbox
+ * message per watcher of either model, all in one transaction. The same certificate in the same
+ * workspace a second time returns the existing map and writes nothing.
+ */
+export async function createCertifiedEdge(
+  input: CertifiedEdgeInput,
+): Promise<{ status: "created" | "existing"; mapId: string; address: string }> {
+  const { db = getDatabase(), workspaceId, certificate } = input;
+  const existing = await findMapByCertificate({ db, workspaceId, address: certificate.address });
+  if (existing) return { status: "existing", mapId: existing.id, address: certificate.address };
+  try {
+    return await db.transaction(async (tx) => {
+      const step = async (name: EdgeWriteStep) => input.onStep?.(name);
+      const again = await findMapByCertificate({ db: tx, workspaceId, address: certificate.address });
+      if (again) return { status: "existing" as const, mapId: again.id, address: certificate.address };
+
+      await storeCertificate({ db: tx, certificate, userId: input.userId });
+      await step("certificate");
+      const source = (await upsertModel({ db: tx, workspaceId, model: input.source, userId: input.userId })).model;
+      const target = (await upsertModel({ db: tx, workspaceId, model: input.target, userId: input.userId })).model;
+      await step("models");
+      const [map] = await tx
+        .insert(maps)
+        .values({
+          workspaceId,
+          sourceModelId: source.id,
+          targetModelId: target.id,
+          kind: input.map.kind,
+          block: input.map.block ?? null,
+          steps: input.map.steps ?? null,
+          summary: input.map.summary,
+          certificateAddress: certificate.address,
+          authorId: input.userId,
+          derivedFromMapId: input.derivedFromMapId ?? null,
+          derivation: input.derivation ?? null,
+        })
+        .returning();
+      await step("map");
+      await recordAuditEvent({
+        db: tx,
+        workspaceId,
+        actorId: input.userId,
+        action: "map:create",
+        subjectType: "map",
+        subjectId: map.id,
+        detail: { certificate: certificate.address, kind: map.kind, source: source.address, target: target.address },
+      });
+      await step("audit");
+      await notifyWatchers({
+        db: tx,
+        workspaceId,
+        modelIds: [source.id, target.id],
+        exceptUserId: input.userId,
+        mapId: map.id,
+        subject: `New certified map: ${source.name} → ${target.name}`,
+        body: `${input.map.summary}\n\nCertificate ${certificate.address}\n${input.linkBase ?? ""}/atlas/maps/${map.id}\n`,
+      });
+      await step("outbox");
+      return { status: "created" as const, mapId: map.id, address: certificate.address };
+    });
+  } catch (err) {
+    // Two requests raced with the same certificate: the loser answers with the winner's map.
+    if (isUniqueViolation(err)) {
+      const winner = await findMapByCertificate({ db, workspaceId, address: certificate.address });
+      if (winner) return { status: "existing", mapId: winner.id, address: certificate.address };
+    }
+    throw wrapDbError(err, "storing a certified map");
+  }
+}
+
+async function findMapByCertificate({
+  db,
+  workspaceId,
+  address,
+}: {
+  db: Executor;
+  workspaceId: string;
+  address: string;
+}): Promise<AtlasMap | undefined> {
+  return db
+    .select()
+    .from(maps)
+    .where(and(eq(maps.workspaceId, workspaceId), eq(maps.certificateAddress, address)))
+    .get();
+}
+
+/** One pending outbox message per person watching any of the models (the actor excepted). */
+async function notifyWatchers({
+  db,
+  workspaceId,
+  modelIds,
+  exceptUserId,
+  mapId,
+  subject,
+  body,
+}: {
+  db: Executor;
+  workspaceId: string;
+  modelIds: string[];
+  exceptUserId: string | null;
+  mapId: string;
+  subject: string;
+  body: string;
+}): Promise<number> {
+  const conditions: SQL[] = [eq(watches.workspaceId, workspaceId), inArray(watches.modelId, modelIds)];
+  if (exceptUserId) conditions.push(ne(watches.userId, exceptUserId));
+  const watchers = await db
+    .selectDistinct({ userId: users.id, email: users.email })
+    .from(watches)
+    .innerJoin(users, eq(users.id, watches.userId))
+    .where(and(...conditions))
+    .all();
+  if (watchers.length === 0) return 0;
+  await db
+    .insert(notificationOutbox)
+    .values(watchers.map((w) => ({ workspaceId, userId: w.userId, toAddress: w.email, subject, body, mapId })));
+  return watchers.length;
+}
+
+const sourceModel = alias(models, "source_model");
+const targetModel = alias(models, "target_model");
+
+function selectMapViews(db: Executor) {
+  const s = sourceModel;
+  const t = targetModel;
+  return db
+    .select({
+      map: maps,
+      source: { id: s.id, address: s.address, kind: s.kind, name: s.name, rule: s.rule },
+      target: { id: t.id, address: t.address, kind: t.kind, name: t.name, rule: t.rule },
+    })
+    .from(maps)
+    .innerJoin(sourceModel, eq(sourceModel.id, maps.sourceModelId))
+    .innerJoin(targetModel, eq(targetModel.id, maps.targetModelId));
+}
+
+function toView(row: { map: AtlasMap; source: ModelRef; target: ModelRef }): MapView {
+  return { ...row.map, source: row.source, target: row.target };
+}
+
+export async function getMap({
+  db = getDatabase(),
+  workspaceId,
+  mapId,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  mapId: string;
+}): Promise<MapView | null> {
+  return withDb("reading a map", async () => {
+    const row = await selectMapViews(db)
+      .where(and(eq(maps.workspaceId, workspaceId), eq(maps.id, mapId)))
+      .get();
+    return row ? toView(row) : null;
+  });
+}
+
+export type MapListOptions = {
+  db?: Executor;
+  workspaceId: string;
+  modelId: string;
+  kind?: MapKind;
+  block?: number;
+  includeRetracted?: boolean;
+  limit?: number;
+  cursor?: string | null;
+};
+
+/** What a model coarse-grains to: certified maps with this model as their source. */
+export async function listMapsFrom(options: MapListOptions): Promise<{ items: MapView[]; nextCursor: string | null }> {
+  return listMapsAt(options, "from");
+}
+
+/** What coarse-grains onto a model: certified maps with this model as their target. */
+export async function listMapsTo(options: MapListOptions): Promise<{ items: MapView[]; nextCursor: string | null }> {
+  return listMapsAt(options, "to");
+}
+
+async function listMapsAt(
+  { db = getDatabase(), workspaceId, modelId, kind, block, includeRetracted = false, limit = 50, cursor }: MapListOptions,
+  direction: "from" | "to",
+): Promise<{ items: MapView[]; nextCursor: string | null }> {
+  return withDb("listing maps", async () => {
+    const conditions: SQL[] = [
+      eq(maps.workspaceId, workspaceId),
+      eq(direction === "from" ? maps.sourceModelId : maps.targetModelId, modelId),
+    ];
+    if (!includeRetracted) conditions.push(eq(maps.status, "certified"));
+    if (kind) conditions.push(eq(maps.kind, kind));
+    if (block !== undefined) conditions.push(eq(maps.block, block));
+    if (cursor) conditions.push(gt(maps.id, String(decodeCursor(cursor, 1)[0])));
+    const rows = await selectMapViews(db)
+      .where(and(...conditions))
+      .orderBy(asc(maps.id))
+      .limit(limit + 1)
+      .all();
+    const items = rows.slice(0, limit).map(toView);
+    const last = items[items.length - 1];
+    return { items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null };
+  });
+}
+
+/**
+ * A curator withdraws a map: it stays in the atlas, marked retracted with who, when and why, and
+ * drops out of paths and "coarse-grains to" answers. Retracting twice is a conflict.
+ */
+export async function retractMap({
+  db = getDatabase(),
+  workspaceId,
+  mapId,
+  userId,
+  reason,
+}: {
+  db?: ReturnType<typeof getDatabase>;
+  workspaceId: string;
+  mapId: string;
+  userId: string;
+  reason: string;
+}): Promise<MapView> {
+  await withDb("retracting a map", () =>
+    db.transaction(async (tx) => {
+      const map = await tx
+        .select()
+        .from(maps)
+        .where(and(eq(maps.workspaceId, workspaceId), eq(maps.id, mapId)))
+        .get();
+      if (!map) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: "id" });
+      if (map.status === "retracted") {
+        throw new AppError("conflict", "This map was retracted already.", { details: { reason: map.retractedReason } });
+      }
+      await tx
+        .update(maps)
+        .set({ status: "retracted", retractedReason: reason, retractedBy: userId, retractedAt: new Date() })
+        .where(eq(maps.id, mapId));
+      await recordAuditEvent({
+        db: tx,
+        workspaceId,
+        actorId: userId,
+        action: "map:retract",
+        subjectType: "map",
+        subjectId: mapId,
+        detail: { reason },
+      });
+      await notifyWatchers({
+        db: tx,
+        workspaceId,
+        modelIds: [map.sourceModelId, map.targetModelId],
+        exceptUserId: userId,
+        mapId,
+        subject: `Map retracted: ${map.summary}`,
+        body: `A curator retracted this map.\nReason: ${reason}\n/atlas/maps/${mapId}\n`,
+      });
+    }),
+  );
+  const view = await getMap({ db, workspaceId, mapId });
+  if (!view) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: "id" });
+  return view;
+}

@@ -1,0 +1,252 @@
+import "server-only";
+import { and, asc, desc, eq, gt, or, sql, type SQL } from "drizzle-orm";
+import { alias } from "drizzle-orm/sqlite-core";
+import { maps, models, searchRecords, type Model, type SearchRecord } from "@/db/schema";
+import { type Executor, getDatabase, withDb } from "./connection";
+import { decodeCursor, encodeCursor } from "./cursor";
+import type { MapKind, MapView } from "./maps";
+import type { ModelKind } from "./models";
+
+export type AtlasSearch = {
+  db?: Executor;
+  workspaceId: string;
+  /** What to list: models (nodes) or maps (edges). */
+  target: "models" | "maps";
+  /** Free text: part of a name, a summary, or a full `sha256:` address. */
+  q?: string;
+  rule?: number;
+  symmetryClass?: number;
+  tag?: string;
+  block?: number;
+  mapKind?: MapKind;
+  modelKind?: ModelKind;
+  includeRetracted?: boolean;
+  limit?: number;
+  cursor?: string | null;
+};
+
+export type AtlasSearchResult =
+  | { target: "models"; items: Model[]; nextCursor: string | null }
+  | { target: "maps"; items: MapView[]; nextCursor: string | null };
+
+function likeEscaped(column: SQL, text: string): SQL {
+  const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+  return sql`${column} LIKE ${pattern} ESCAPE '\\'`;
+}
+
+/** Tags are stored as a JSON array of strings; match one element exactly. */
+function hasTag(tags: SQL, tag: string): SQL {
+  return sql`EXISTS (SELECT 1 FROM json_each(${tags}) WHERE json_each.value = ${tag})`;
+}
+
+/**
+ * Search by name, rule number, symmetry class, tag, block size, model kind and map kind, one
+ * page at a time (cursor = the last row's sort key). Map searches match their source model's
+ * rule, class and tag, and either end's name.
+ */
+export async function searchAtlas(search: AtlasSearch): Promise<AtlasSearchResult> {
+  return search.target === "models" ? searchModels(search) : searchMaps(search);
+}
+
+async function searchModels({
+  db = getDatabase(),
+  workspaceId,
+  q,
+  rule,
+  symmetryClass,
+  tag,
+  block,
+  modelKind,
+  limit = 50,
+  cursor,
+}: AtlasSearch): Promise<AtlasSearchResult> {
+  return withDb("searching models", async () => {
+    const c: SQL[] = [eq(models.workspaceId, workspaceId)];
+    if (q) c.push(q.startsWith("sha256:") ? eq(models.address, q) : or(likeEscaped(sql`${models.name}`, q), likeEscaped(sql`${models.description}`, q))!);
+    if (rule !== undefined) c.push(eq(models.rule, rule));
+    if (symmetryClass !== undefined) c.push(eq(models.symmetryClass, symmetryClass));
+    if (tag) c.push(hasTag(sql`${models.tags}`, tag));
+    if (block !== undefined) c.push(eq(models.block, block));
+    if (modelKind) c.push(eq(models.kind, modelKind));
+    if (cursor) {
+      const [name, id] = decodeCursor(cursor, 2).map(String);
+      c.push(or(gt(models.name, name), and(eq(models.name, name), gt(models.id, id)))!);
+    }
+    const rows = await db
+      .select()
+      .from(models)
+      .where(and(...c))
+      .orderBy(asc(models.name), asc(models.id))
+      .limit(limit + 1)
+      .all();
+    const items = rows.slice(0, limit);
+    const last = items[items.length - 1];
+    return { target: "models", items, nextCursor: rows.length > limit && last ? encodeCursor([last.name, last.id]) : null };
+  });
+}
+
+const source = alias(models, "s");
+const target = alias(models, "t");
+
+async function searchMaps({
+  db = getDatabase(),
+  workspaceId,
+  q,
+  rule,
+  symmetryClass,
+  tag,
+  block,
+  mapKind,
+  modelKind,
+  includeRetracted = false,
+  limit = 50,
+  cursor,
+}: AtlasSearch): Promise<AtlasSearchResult> {
+  return withDb("searching maps", async () => {
+    const c: SQL[] = [eq(maps.workspaceId, workspaceId)];
+    if (!includeRetracted) c.push(eq(maps.status, "certified"));
+    if (q) {
+      c.push(
+        q.startsWith("sha256:")
+          ? eq(maps.certificateAddress, q)
+          : or(
+              likeEscaped(sql`${maps.summary}`, q),
+              likeEscaped(sql`${source.name}`, q),
+              likeEscaped(sql`${target.name}`, q),
+            )!,
+      );
+    }
+    if (rule !== undefined) c.push(eq(source.rule, rule));
+    if (symmetryClass !== undefined) c.push(eq(source.symmetryClass, symmetryClass));
+    if (tag) c.push(hasTag(sql`${source.tags}`, tag));
+    if (block !== undefined) c.push(eq(maps.block, block));
+    if (mapKind) c.push(eq(maps.kind, mapKind));
+    if (modelKind) c.push(eq(source.kind, modelKind));
+    if (cursor) c.push(gt(maps.id, String(decodeCursor(cursor, 1)[0])));
+    const rows = await db
+      .select({
+        map: maps,
+        source: { id: source.id, address: source.address, kind: source.kind, name: source.name, rule: source.rule },
+        target: { id: target.id, address: target.address, kind: target.kind, name: target.name, rule: target.rule },
+      })
+      .from(maps)
+      .innerJoin(source, eq(source.id, maps.sourceModelId))
+      .innerJoin(target, eq(target.id, maps.targetModelId))
+      .where(and(...c))
+      .orderBy(asc(maps.id))
+      .limit(limit + 1)
+      .all();
+    const items = rows.slice(0, limit).map((r) => ({ ...r.map, source: r.source, target: r.target }));
+    const last = items[items.length - 1];
+    return { target: "maps", items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null };
+  });
+}
+
+/** The hierarchy of one model class: its models grouped by symmetry class, and the maps among them. */
+export async function getClassHierarchy({
+  db = getDatabase(),
+  workspaceId,
+  kind,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  kind: ModelKind;
+}): Promise<{
+  groups: { symmetryClass: number | null; models: Model[] }[];
+  edges: { id: string; sourceModelId: string; targetModelId: string; kind: MapKind; block: number | null }[];
+}> {
+  return withDb("reading a hierarchy", async () => {
+    const nodes = await db
+      .select()
+      .from(models)
+      .where(and(eq(models.workspaceId, workspaceId), eq(models.kind, kind)))
+      .orderBy(asc(models.symmetryClass), asc(models.rule), asc(models.name))
+      .all();
+    const edges = await db
+      .select({
+        id: maps.id,
+        sourceModelId: maps.sourceModelId,
+        targetModelId: maps.targetModelId,
+        kind: maps.kind,
+        block: maps.block,
+      })
+      .from(maps)
+      .innerJoin(source, eq(source.id, maps.sourceModelId))
+      .innerJoin(target, eq(target.id, maps.targetModelId))
+      .where(and(eq(maps.workspaceId, workspaceId), eq(maps.status, "certified"), eq(source.kind, kind), eq(target.kind, kind)))
+      .all();
+    const groups = new Map<number | null, Model[]>();
+    for (const m of nodes) groups.set(m.symmetryClass, [...(groups.get(m.symmetryClass) ?? []), m]);
+    return { groups: [...groups].map(([symmetryClass, ms]) => ({ symmetryClass, models: ms })), edges };
+  });
+}
+
+/** Recorded searches of a model, newest first: the evidence behind "none within these bounds". */
+export async function listSearchRecords({
+  db = getDatabase(),
+  workspaceId,
+  modelId,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  modelId: string;
+}): Promise<SearchRecord[]> {
+  return withDb("reading search records", () =>
+    db
+      .select()
+      .from(searchRecords)
+      .where(and(eq(searchRecords.workspaceId, workspaceId), eq(searchRecords.modelId, modelId)))
+      .orderBy(desc(searchRecords.createdAt))
+      .all(),
+  );
+}
+
+/**
+ * Records a finished exhaustive search. `outcome.targets` lists the content addresses of every
+ * model the search reached, so "does A coarse-grain onto B" can answer "no up to block N".
+ */
+export async function createSearchRecord({
+  db = getDatabase(),
+  workspaceId,
+  modelId,
+  kind,
+  maxBlock,
+  algorithm,
+  algorithmVersion,
+  coverage,
+  outcome,
+  jobId = null,
+  userId = null,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  modelId: string;
+  kind: string;
+  maxBlock: number | null;
+  algorithm: string;
+  algorithmVersion: string;
+  coverage: Record<string, unknown>;
+  outcome: { targets: string[] } & Record<string, unknown>;
+  jobId?: string | null;
+  userId?: string | null;
+}): Promise<SearchRecord> {
+  return withDb("recording a search", async () => {
+    const [row] = await db
+      .insert(searchRecords)
+      .values({
+        workspaceId,
+        modelId,
+        kind,
+        maxBlock,
+        algorithm,
+        algorithmVersion,
+        coverage: JSON.stringify(coverage),
+        outcome: JSON.stringify(outcome),
+        found: outcome.targets.length,
+        jobId,
+        createdBy: userId,
+      })
+      .returning();
+    return row;
+  });
+}
