@@ -1,0 +1,9 @@
+/** 1-D cellular automata: rule tables, iterates, supercells and the exhaustive projection check (DOMAIN.md §1–2). */
+export type { RuleTable } from "./ruleTable";
+export { CaInputError, MAX_TABLE_ENTRIES, assertRuleTable, ecaTable, ecaRuleOf, neighbourhoodCount, supercellRadius } from "./ruleTable";
+export { evolveCells, toDigits, fromDigits } from "./evolveCells";
+export { iterateTable } from "./iterateTable";
+export { supercellTable } from "./supercellTable";
+export { supercellTablePlain } from "./supercellTablePlain";
+export { checkProjection, coarseAlphabet, cellString } from "./checkProjection";
+export type { CheckProjectionOptions, ProjectionCheck, ProjectionCounterexample, WindowWitness } from "./checkProjection";
