@@ -7,6 +7,8 @@ export type AtlasFilters = {
   block?: number;
   mapKind?: string;
   kind?: string;
+  /** List models (nodes) or maps (edges). */
+  view?: "models" | "maps";
   cursor?: string;
 };
 
@@ -44,6 +46,11 @@ export function parseAtlasFilters(
   if (mapKind !== undefined) {
     if (allowed.mapKinds.includes(mapKind)) filters.mapKind = mapKind;
     else problems.push({ field: "mapKind", message: `must be one of ${allowed.mapKinds.join(", ")}` });
+  }
+  const view = first(params.view);
+  if (view !== undefined) {
+    if (view === "models" || view === "maps") filters.view = view;
+    else problems.push({ field: "view", message: "must be models or maps" });
   }
   const kind = first(params.kind);
   if (kind !== undefined) {

@@ -10,6 +10,7 @@ function record(id: string, maxBlock: number, targets: string[], coverage: objec
     algorithmVersion: "1",
     coverage: JSON.stringify(coverage),
     outcome: JSON.stringify({ targets }),
+    found: targets.length,
     createdAt: new Date(0),
   };
 }

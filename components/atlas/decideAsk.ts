@@ -7,6 +7,8 @@ export type AskRecord = {
   algorithmVersion: string;
   coverage: string;
   outcome: string;
+  /** How many targets the search reached. */
+  found: number;
   createdAt: Date;
 };
 
