@@ -19,7 +19,7 @@ export function createDatabase(url: string, authToken?: string) {
   // Several connections of one process share a file (a transaction holds its own), so a writer
   // waits for the lock instead of failing at once with SQLITE_BUSY; remote servers ignore this.
   const opened = createClient({ url, authToken, timeout: 5000 });
-  const client = url.startsWith("file:") ? serializeWrites(opened) : opened;
+  const client = url.startsWith("file:") ? serializeWrites(opened, { key: url }) : opened;
   const db = drizzle(client, { schema });
   return Object.assign(db, { $client: client });
 }

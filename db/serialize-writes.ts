@@ -7,16 +7,18 @@ import type { Client, InStatement, Transaction } from "@libsql/client";
  * transaction can never finish: a self-deadlock that ends in SQLITE_BUSY. This wrapper lets one
  * writer (a transaction, from begin to commit or rollback, or a single write statement) go at a
  * time; other writers wait asynchronously. Plain reads are not queued: they never conflict.
+ * The lock belongs to the file (`key`), not to the client, and lives on globalThis, because Next
+ * may bundle the server's entry points separately, each with its own client to the same file.
  */
-export function serializeWrites(client: Client, options: { waitMs?: number } = {}): Client {
+export function serializeWrites(client: Client, options: { key: string; waitMs?: number }): Client {
   const waitMs = options.waitMs ?? 15_000;
-  let tail: Promise<void> = Promise.resolve();
+  const tails = lockTails();
 
   async function acquire(): Promise<() => void> {
     let release!: () => void;
     const held = new Promise<void>((resolve) => (release = resolve));
-    const previous = tail;
-    tail = previous.then(() => held);
+    const previous = tails.get(options.key) ?? Promise.resolve();
+    tails.set(options.key, previous.then(() => held));
     let timer: NodeJS.Timeout | undefined;
     const timeout = new Promise<never>((_, reject) => {
       timer = setTimeout(
@@ -110,6 +112,13 @@ export function serializeWrites(client: Client, options: { waitMs?: number } = {
     },
   });
 }
+
+function lockTails(): Map<string, Promise<void>> {
+  const holder = globalThis as { [LOCKS]?: Map<string, Promise<void>> };
+  holder[LOCKS] ??= new Map();
+  return holder[LOCKS];
+}
+const LOCKS = Symbol.for("squarely.db.writeLocks");
 
 function isRead(sql: string): boolean {
   return /^\s*select\b/i.test(sql) || (/^\s*with\b/i.test(sql) && !/\b(insert|update|delete|replace)\b/i.test(sql));
