@@ -1,0 +1,9 @@
+/** Finite Markov chains with exact rational transition matrices: powers, strong lumping, matrix files. */
+export type { Matrix } from "./matrix";
+export { MatrixInputError, formatMatrix, identityMatrix, matricesEqual, matrixProduct } from "./matrix";
+export { isStochastic, stochasticIssue } from "./isStochastic";
+export { matrixPower } from "./matrixPower";
+export { canonicalPartition, blockCount } from "./canonicalPartition";
+export { checkLumping } from "./checkLumping";
+export type { LumpingCheck, LumpingCounterexample } from "./checkLumping";
+export { parseCsvMatrix, parseMatrixMarket } from "./parseMatrix";

@@ -1,0 +1,63 @@
+import { gcd, type Rational } from "@/lib/rational";
+import { MatrixInputError, identityMatrix, type Matrix } from "./matrix";
+
+/** Integers over one common denominator: the value of entry (i, j) is num[i][j] / den. */
+type Scaled = { num: bigint[][]; den: bigint };
+
+/**
+ * P^k by repeated squaring. The matrix is kept as integers over one common denominator D, so no gcd is
+ * taken while squaring; at the end every entry is reduced. Since the final denominator divides D^k, its
+ * prime factors all divide D, and the reduction only needs gcds against the small D (see reduceOver).
+ */
+export function matrixPower(p: Matrix, k: number): Matrix {
+  if (!Number.isSafeInteger(k) || k < 0) throw new MatrixInputError("steps", `the exponent must be a non-negative integer, got ${k}`);
+  const n = p.length;
+  if (k === 0) return identityMatrix(n);
+  const base = toScaled(p);
+  let square = base;
+  let result: Scaled | null = null;
+  for (let e = k; e > 0; e = Math.floor(e / 2)) {
+    if (e % 2 === 1) result = result === null ? square : multiply(result, square);
+    if (e > 1) square = multiply(square, square);
+  }
+  const out = result as Scaled;
+  return out.num.map((row) => row.map((x) => reduceOver(x, out.den, base.den)));
+}
+
+function toScaled(p: Matrix): Scaled {
+  let den = 1n;
+  for (const row of p) for (const x of row) den = (den / gcd(den, x.den)) * x.den;
+  return { num: p.map((row) => row.map((x) => x.num * (den / x.den))), den };
+}
+
+function multiply(a: Scaled, b: Scaled): Scaled {
+  const n = a.num.length;
+  const num: bigint[][] = [];
+  for (let i = 0; i < n; i++) {
+    const row = new Array<bigint>(n).fill(0n);
+    const ai = a.num[i];
+    for (let l = 0; l < n; l++) {
+      const x = ai[l];
+      if (x === 0n) continue;
+      const bl = b.num[l];
+      for (let j = 0; j < n; j++) if (bl[j] !== 0n) row[j] += x * bl[j];
+    }
+    num.push(row);
+  }
+  return { num, den: a.den * b.den };
+}
+
+/**
+ * num/den in lowest terms when every prime factor of den divides `small`: any common prime of num and
+ * den then divides gcd(num, den, small), so dividing out that gcd until it is 1 leaves the fraction reduced.
+ * Each gcd is taken against `small`, never between two huge numbers.
+ */
+function reduceOver(num: bigint, den: bigint, small: bigint): Rational {
+  if (num === 0n) return { num: 0n, den: 1n };
+  for (;;) {
+    const g = gcd(num % small, gcd(den % small, small));
+    if (g === 1n) return { num, den };
+    num /= g;
+    den /= g;
+  }
+}
