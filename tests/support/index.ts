@@ -1,0 +1,4 @@
+export { createTestDatabase, type TestDatabase } from "./database";
+export { startTestServer, type TestServer } from "./server";
+export { launchBrowser } from "./browser";
+export { freePort } from "./ports";
