@@ -1,6 +1,7 @@
 import { and, asc, desc, eq, inArray, lt, or, sql } from "drizzle-orm";
 import { jobs, type Job } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
+import { decodeCursor, encodeCursor } from "./cursor";
 
 export const ACTIVE_JOB_STATUSES = ["queued", "running"] as const;
 type FinishedStatus = "succeeded" | "failed" | "cancelled";
@@ -40,9 +41,7 @@ export async function getJob({ db = getDatabase(), ...input }: { db?: Executor }
   return row ?? null;
 }
 
-/**
- * Newest first, paginated by an opaque cursor "<createdAt ms>:<id>" (the last row of the previous page).
- */
+/** Newest first, paginated by an opaque cursor (the sort key of the previous page's last row). */
 export async function listJobs(
   { db = getDatabase(), ...input }: { db?: Executor } & { workspaceId: string; ownerId?: string; status?: Job["status"]; cursor?: string | null; limit?: number },
 ): Promise<{ items: Job[]; nextCursor: string | null }> {
@@ -50,9 +49,10 @@ export async function listJobs(
   const conditions = [eq(jobs.workspaceId, input.workspaceId)];
   if (input.ownerId) conditions.push(eq(jobs.ownerId, input.ownerId));
   if (input.status) conditions.push(eq(jobs.status, input.status));
-  const cursor = parseCursor(input.cursor);
-  if (cursor) {
-    const before = or(lt(jobs.createdAt, cursor.at), and(eq(jobs.createdAt, cursor.at), lt(jobs.id, cursor.id)));
+  if (input.cursor) {
+    const [ms, id] = decodeCursor(input.cursor, 2);
+    const at = new Date(Number(ms));
+    const before = or(lt(jobs.createdAt, at), and(eq(jobs.createdAt, at), lt(jobs.id, String(id))));
     if (before) conditions.push(before);
   }
   const rows = await withDb("listing jobs", () =>
@@ -65,14 +65,8 @@ export async function listJobs(
   );
   const items = rows.slice(0, limit);
   const last = items[items.length - 1];
-  const nextCursor = rows.length > limit && last ? `${last.createdAt.getTime()}:${last.id}` : null;
+  const nextCursor = rows.length > limit && last ? encodeCursor([last.createdAt.getTime(), last.id]) : null;
   return { items, nextCursor };
-}
-
-function parseCursor(cursor: string | null | undefined): { at: Date; id: string } | null {
-  if (!cursor) return null;
-  const match = /^(\d+):(.+)$/.exec(cursor);
-  return match ? { at: new Date(Number(match[1])), id: match[2] } : null;
 }
 
 /** Oldest queued jobs first (FIFO), at most `limit`. */

@@ -1,0 +1,34 @@
+import { env } from "@/env";
+import { getDatabase } from "@/db/queries/connection";
+import { sendMail } from "@/server/mail/send";
+import { createOutboxDelivery, type OutboxDelivery } from "@/server/mail/outbox";
+import { createJobRunner, type JobRunner } from "./job-runner";
+import "./kinds";
+
+type Started = { runner: JobRunner | null; outbox: OutboxDelivery };
+const globalForRunner = globalThis as unknown as { squarelyJobRunner?: Promise<Started> };
+
+/**
+ * Starts this process's job runner (when JOB_WORKERS > 0) and the watchers' mail delivery, once per
+ * process. Called from instrumentation.ts in the Node.js runtime only: worker threads and SMTP do
+ * not exist in the edge runtime.
+ */
+export function startJobRunner(): Promise<Started | null> {
+  if (process.env.NEXT_RUNTIME && process.env.NEXT_RUNTIME !== "nodejs") return Promise.resolve(null);
+  globalForRunner.squarelyJobRunner ??= start();
+  return globalForRunner.squarelyJobRunner;
+}
+
+async function start(): Promise<Started> {
+  const db = getDatabase();
+  let runner: JobRunner | null = null;
+  if (env.JOB_WORKERS > 0) {
+    runner = createJobRunner({ db, workers: env.JOB_WORKERS });
+    await runner.start();
+  }
+  const outbox = createOutboxDelivery({ db, send: sendMail });
+  outbox.start();
+  void outbox.deliverDue().catch((err) => console.error("mail outbox:", err));
+  console.log(`job runner: ${env.JOB_WORKERS} worker thread(s); mail outbox delivery started`);
+  return { runner, outbox };
+}
