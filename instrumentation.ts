@@ -6,4 +6,6 @@ export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== "nodejs") return;
   const { startConfiguredMailCatcher } = await import("./server/mail/start");
   await startConfiguredMailCatcher();
+  const { startJobRunner } = await import("./server/jobs/runner");
+  await startJobRunner();
 }
