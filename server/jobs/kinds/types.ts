@@ -36,8 +36,10 @@ export type JobKind<P = unknown> = {
   /** Share of the progress bar given to compute when a persist step follows. @default 0.5 */
   computeShare?: number;
   persist?: (input: PersistInput<P>) => Promise<unknown>;
-  /** One line for the jobs list, from the params ("rule 110, blocks 2–3"). */
-  describe?: (params: P) => string;
+  /** One line for the jobs list, from the params ("rule 110, blocks 2–3"). Gets stored params, so it checks them. */
+  describe?: (params: unknown) => string;
+  /** Parameters that the "start a job" form offers first. */
+  example?: P;
 };
 
 /** Forgets the parameter type, for the registry. */
