@@ -24,6 +24,10 @@ const EnvSchema = z.object({
   JOB_WORKERS: z.coerce.number().int().min(0).max(16).default(2),
   /** Jobs one user may have running or queued at once. */
   JOBS_PER_USER: z.coerce.number().int().min(1).max(100).default(4),
+  /** Time bound of one server-side certificate check (the worker thread is terminated after it). */
+  VERIFY_TIMEOUT_MS: z.coerce.number().int().min(100).max(600_000).default(20_000),
+  /** V8 heap bound of a verification worker thread, in MB. */
+  VERIFY_MEMORY_MB: z.coerce.number().int().min(32).max(8192).default(512),
 });
 
 export type Env = z.infer<typeof EnvSchema>;
