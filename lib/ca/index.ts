@@ -4,6 +4,6 @@ export { CaInputError, MAX_TABLE_ENTRIES, assertRuleTable, ecaTable, ecaRuleOf, 
 export { evolveCells, toDigits, fromDigits } from "./evolveCells";
 export { iterateTable } from "./iterateTable";
 export { supercellTable } from "./supercellTable";
-export { supercellTablePlain } from "./supercellTablePlain";
+export { supercellTablePlain, supercellShape } from "./supercellTablePlain";
 export { checkProjection, coarseAlphabet, cellString } from "./checkProjection";
 export type { CheckProjectionOptions, ProjectionCheck, ProjectionCounterexample, WindowWitness } from "./checkProjection";

@@ -1,0 +1,65 @@
+import { CaInputError } from "@/lib/ca";
+import { MatrixInputError } from "@/lib/markov";
+import type { Issue } from "@/lib/models";
+import { CertificateInputError, canonicalCertificate, certificateAddress, type Certificate, type Counterexample } from "@/lib/certificate";
+import { checkSquare } from "./checkSquare";
+import { DEFAULT_LIMITS, exceededLimit, type Limits } from "./limits";
+import { structureIssues } from "./structureIssues";
+
+/** Bumped whenever the checker's behaviour changes; recorded with every verification. */
+export const CHECKER_VERSION = "squarely-checker/1";
+
+export type VerifyResult =
+  | { status: "holds"; address: string; certificate: Certificate; checkerVersion: string }
+  | { status: "fails"; address: string; counterexample: Counterexample }
+  | { status: "malformed"; issues: Issue[] }
+  | { status: "too-large"; bound: string; limit: number; asked: number };
+
+/**
+ * Verifies a certificate (a parsed JSON value or its text) and never throws: parse → canonical form →
+ * seal → structure → limits (before any work) → the exhaustive check.
+ */
+export function verifyCertificate(input: unknown, limits: Limits = DEFAULT_LIMITS): VerifyResult {
+  try {
+    return verify(input, limits);
+  } catch (e) {
+    return { status: "malformed", issues: [{ path: "", message: `could not check the certificate: ${e instanceof Error ? e.message : String(e)}` }] };
+  }
+}
+
+function verify(input: unknown, limits: Limits): VerifyResult {
+  let value = input;
+  if (typeof input === "string") {
+    try {
+      value = JSON.parse(input);
+    } catch (e) {
+      return { status: "malformed", issues: [{ path: "", message: `not JSON: ${e instanceof Error ? e.message : String(e)}` }] };
+    }
+  }
+  let cert: Certificate;
+  try {
+    cert = canonicalCertificate(value);
+  } catch (e) {
+    if (e instanceof CertificateInputError) return { status: "malformed", issues: e.issues };
+    throw e;
+  }
+  const address = certificateAddress(cert);
+  if (cert.address !== undefined && cert.address !== address)
+    return {
+      status: "malformed",
+      issues: [{ path: "address", message: `the certificate carries ${cert.address} but its content hashes to ${address}: it was changed after it was issued` }],
+    };
+  const issues = structureIssues(cert);
+  if (issues.length > 0) return { status: "malformed", issues };
+  const tooLarge = exceededLimit(cert, limits);
+  if (tooLarge) return { status: "too-large", ...tooLarge };
+  let square;
+  try {
+    square = checkSquare(cert);
+  } catch (e) {
+    if (e instanceof CaInputError || e instanceof MatrixInputError) return { status: "malformed", issues: [{ path: `map.${e.field}`, message: e.message }] };
+    throw e;
+  }
+  if (!square.holds) return { status: "fails", address, counterexample: square.counterexample };
+  return { status: "holds", address, certificate: { ...cert, address }, checkerVersion: CHECKER_VERSION };
+}
