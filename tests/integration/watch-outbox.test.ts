@@ -58,7 +58,7 @@ describe("delivering the watchers' outbox", () => {
       .insert(notificationOutbox)
       .values({ workspaceId: ws, toAddress: "bounce@queue-lab.test", subject: "never arrives", body: "x" })
       .returning();
-    const delivery = createOutboxDelivery({ send: sendMail, maxAttempts: 3, retryBaseMs: 200 });
+    const delivery = createOutboxDelivery({ send: sendMail, maxAttempts: 3, retryBaseMs: 300 });
     expect(await delivery.deliverDue()).toEqual({ sent: 0, retrying: 1, failed: 0 });
     // Inside the back-off window nothing is tried.
     expect(await delivery.deliverDue()).toEqual({ sent: 0, retrying: 0, failed: 0 });
@@ -66,9 +66,9 @@ describe("delivering the watchers' outbox", () => {
     expect(pending.id).toBe(row.id);
     expect(pending.attempts).toBe(1);
     expect(pending.lastError).toMatch(/550/);
-    await new Promise((r) => setTimeout(r, 250));
+    await new Promise((r) => setTimeout(r, 400));
     expect(await delivery.deliverDue()).toEqual({ sent: 0, retrying: 1, failed: 0 });
-    await new Promise((r) => setTimeout(r, 450));
+    await new Promise((r) => setTimeout(r, 700));
     expect(await delivery.deliverDue()).toEqual({ sent: 0, retrying: 0, failed: 1 });
     [pending] = await listOutboxMessages({ workspaceId: ws, status: "failed" });
     expect(pending.attempts).toBe(3);
