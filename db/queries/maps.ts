@@ -115,6 +115,19 @@ export async function createCertifiedEdge(
   }
 }
 
+/** The map of this workspace that a certificate already backs, if any. */
+export async function findMapIdByCertificate({
+  db = getDatabase(),
+  workspaceId,
+  address,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  address: string;
+}): Promise<string | null> {
+  return withDb("reading a map", async () => (await findMapByCertificate({ db, workspaceId, address }))?.id ?? null);
+}
+
 async function findMapByCertificate({
   db,
   workspaceId,

@@ -1,0 +1,112 @@
+/**
+ * What the verification worker thread runs. Depends on lib/ alone (no database, no Next), so it
+ * loads the same way in a worker under `next start`, vitest and tsx.
+ */
+import type { ModelFields } from "@/db/queries/models";
+import {
+  certificateSummary,
+  certificateText,
+  certifyBlocking,
+  certifyDecimation,
+  certifyIterate,
+  certifyLumping,
+  certifyProjection,
+  CERTIFICATE_VERSION,
+  type Certificate,
+} from "@/lib/certificate";
+import { canonicalModel, ModelInputError } from "@/lib/models";
+import { verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
+import { modelFields } from "./model-fields";
+
+/** Ask the server to build the certificate from a claim (what a script sends when it has no builder). */
+export type BuildRequest =
+  | { kind: "projection"; rule?: number; table?: { k: number; r: number; table: number[] }; block: number; steps?: number; projection: number[] | string }
+  | { kind: "lumping"; chain: unknown; partition: number[]; steps?: number }
+  | { kind: "decimation"; chain: unknown; steps: number }
+  | { kind: "blocking"; rule?: number; table?: { k: number; r: number; table: number[] }; block: number; steps?: number }
+  | { kind: "iterate"; rule?: number; table?: { k: number; r: number; table: number[] }; steps: number };
+
+export type VerifyTask =
+  | { op: "verify"; certificate: unknown; limits: Limits }
+  | { op: "build"; build: BuildRequest; limits: Limits }
+  | { op: "model"; model: unknown };
+
+/** A verified certificate, ready to be written: plain data (it crosses a thread boundary). */
+export type Verified = {
+  status: "holds";
+  address: string;
+  body: string;
+  checkerVersion: string;
+  formatVersion: number;
+  kind: Certificate["map"]["kind"];
+  block: number | null;
+  steps: number | null;
+  text: string;
+  source: ModelFields;
+  target: ModelFields;
+};
+
+export type VerifyOutcome =
+  | Verified
+  | Exclude<VerifyResult, { status: "holds" }>
+  | { status: "model"; fields: ModelFields };
+
+export function runVerifyTask(task: VerifyTask): VerifyOutcome {
+  switch (task.op) {
+    case "verify":
+      return described(verifyCertificate(task.certificate, task.limits));
+    case "build":
+      return build(task.build, task.limits);
+    case "model":
+      try {
+        return { status: "model", fields: modelFields(canonicalModel(task.model)) };
+      } catch (e) {
+        if (e instanceof ModelInputError) return { status: "malformed", issues: e.issues };
+        return { status: "malformed", issues: [{ path: "", message: e instanceof Error ? e.message : String(e) }] };
+      }
+  }
+}
+
+function build(request: BuildRequest, limits: Limits): VerifyOutcome {
+  let built;
+  try {
+    built = builders[request.kind](request as never);
+  } catch (e) {
+    const field = (e as { field?: unknown }).field;
+    const issues = (e as { issues?: { path: string; message: string }[] }).issues;
+    if (Array.isArray(issues)) return { status: "malformed", issues };
+    return {
+      status: "malformed",
+      issues: [{ path: typeof field === "string" ? field : "", message: e instanceof Error ? e.message : String(e) }],
+    };
+  }
+  if (!built.ok) return { status: "fails", address: "", counterexample: built.counterexample as never };
+  // The builder ran the check; the independent checker runs it again, within the limits.
+  return described(verifyCertificate(built.certificate, limits));
+}
+
+const builders: Record<BuildRequest["kind"], (r: never) => { ok: true; certificate: Certificate } | { ok: false; counterexample: unknown }> = {
+  projection: certifyProjection,
+  lumping: certifyLumping,
+  decimation: certifyDecimation,
+  blocking: certifyBlocking,
+  iterate: certifyIterate,
+};
+
+function described(result: VerifyResult): VerifyOutcome {
+  if (result.status !== "holds") return result;
+  const summary = certificateSummary(result.certificate);
+  return {
+    status: "holds",
+    address: result.address,
+    body: certificateText(result.certificate),
+    checkerVersion: result.checkerVersion,
+    formatVersion: CERTIFICATE_VERSION,
+    kind: summary.kind,
+    block: summary.block ?? null,
+    steps: summary.steps ?? null,
+    text: summary.text,
+    source: modelFields(summary.source),
+    target: modelFields(summary.target),
+  };
+}
