@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { canonicalView } from "./canonicalView";
+import { canonicalView, prettyJson } from "./canonicalView";
 
 describe("canonicalView", () => {
   it("reads a Markov chain's labels and exact matrix", () => {
@@ -29,5 +29,19 @@ describe("canonicalView", () => {
     expect(canonicalView("{not json")).toEqual({ type: "unknown" });
     expect(canonicalView(JSON.stringify({ kind: "eca", rule: 300 }))).toEqual({ type: "unknown" });
     expect(canonicalView("null")).toEqual({ type: "unknown" });
+  });
+});
+
+describe("prettyJson", () => {
+  it("keeps rows and projections on one line and parses back to the same value", () => {
+    const value = { kind: "markov", matrix: [["1/2", "1/2"], ["1/4", "3/4"]], projection: [0, 1, 1, 0], nested: { a: [], b: {} } };
+    const text = prettyJson(JSON.stringify(value));
+    expect(text).toContain('    ["1/2", "1/2"],');
+    expect(text).toContain('"projection": [0, 1, 1, 0]');
+    expect(JSON.parse(text)).toEqual(value);
+  });
+
+  it("returns text that is not JSON unchanged", () => {
+    expect(prettyJson("not json")).toBe("not json");
   });
 });

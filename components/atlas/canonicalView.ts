@@ -55,10 +55,30 @@ export function canonicalView(canonical: string): CanonicalView {
   }
 }
 
-/** Indented JSON for reading; text that is not JSON is shown as it is. */
+const isFlat = (v: unknown[]) => v.every((x) => x === null || typeof x !== "object");
+
+function layout(value: unknown, indent: string): string {
+  if (Array.isArray(value)) {
+    if (isFlat(value)) return `[${value.map((x) => JSON.stringify(x)).join(", ")}]`;
+    const inner = indent + "  ";
+    return `[\n${value.map((x) => inner + layout(x, inner)).join(",\n")}\n${indent}]`;
+  }
+  if (value && typeof value === "object") {
+    const entries = Object.entries(value);
+    if (entries.length === 0) return "{}";
+    const inner = indent + "  ";
+    return `{\n${entries.map(([k, v]) => `${inner}${JSON.stringify(k)}: ${layout(v, inner)}`).join(",\n")}\n${indent}}`;
+  }
+  return JSON.stringify(value);
+}
+
+/**
+ * Indented JSON for reading, with arrays of plain values on one line (a projection, a matrix row);
+ * text that is not JSON is shown as it is.
+ */
 export function prettyJson(text: string): string {
   try {
-    return JSON.stringify(JSON.parse(text), null, 2);
+    return layout(JSON.parse(text), "");
   } catch {
     return text;
   }

@@ -39,6 +39,20 @@ const power = (symbol: string, n: number | null | undefined) => (n && n > 1 ? `$
  * P V = V Q, Kemeny & Snell 1960, §6.3); CAs act on configurations (Israeli & Goldenfeld 2006).
  */
 export function tikzSquare(input: SquareInput): string {
+  const { topLeft, bottomLeft, top, bottom, down } = squareParts(input);
+  const lines = [
+    "% \\usepackage{tikz-cd}",
+    ...(input.certificateAddress ? [`% certificate ${input.certificateAddress}`] : []),
+    "\\begin{tikzcd}",
+    `  ${topLeft} \\arrow[r, "${top}"] \\arrow[d, "${down}"'] & ${topLeft} \\arrow[d, "${down}"] \\\\`,
+    `  ${bottomLeft} \\arrow[r, "${bottom}"'] & ${bottomLeft}`,
+    "\\end{tikzcd}",
+  ];
+  return lines.join("\n");
+}
+
+/** The corners and arrows of the square, each in LaTeX: spaces on the left, maps on the arrows. */
+export function squareParts(input: SquareInput): { topLeft: string; bottomLeft: string; top: string; bottom: string; down: string } {
   const { kind, block, source, target } = input;
   const steps = input.steps ?? block ?? null;
   const topLeft = space(source);
@@ -71,15 +85,7 @@ export function tikzSquare(input: SquareInput): string {
       break;
   }
 
-  const lines = [
-    "% \\usepackage{tikz-cd}",
-    ...(input.certificateAddress ? [`% certificate ${input.certificateAddress}`] : []),
-    "\\begin{tikzcd}",
-    `  ${topLeft} \\arrow[r, "${top}"] \\arrow[d, "${down}"'] & ${topLeft} \\arrow[d, "${down}"] \\\\`,
-    `  ${bottomLeft} \\arrow[r, "${bottom}"'] & ${bottomLeft}`,
-    "\\end{tikzcd}",
-  ];
-  return lines.join("\n");
+  return { topLeft, bottomLeft, top, bottom, down };
 }
 
 function stripZ(configurationSpace: string): string {

@@ -23,8 +23,19 @@ function kindText(link: EditorLink): string {
  * and send the chain to the server, which re-verifies every link (and the composite where it fits)
  * before storing it.
  */
-export function ChainEditor({ pool, action, canSubmit }: { pool: EditorLink[]; action: Action; canSubmit: boolean }) {
-  const [state, dispatch] = useReducer(editorReducer, emptyEditor);
+export function ChainEditor({
+  pool,
+  initial = [],
+  action,
+  canSubmit,
+}: {
+  pool: EditorLink[];
+  /** Links to start with, e.g. a chain the atlas found between two models. */
+  initial?: EditorLink[];
+  action: Action;
+  canSubmit: boolean;
+}) {
+  const [state, dispatch] = useReducer(editorReducer, initial, (links) => ({ ...emptyEditor, links }));
   const [filter, setFilter] = useState("");
   const [showAll, setShowAll] = useState(false);
   const [result, formAction, pending] = useActionState<ChainActionState, FormData>(async (prev, form) => {

@@ -15,7 +15,7 @@ import ReactFlow, {
 import "reactflow/dist/style.css";
 import type { GraphLayout, PositionedNode } from "./types";
 
-type NodeData = Pick<PositionedNode, "label" | "detail" | "href" | "width" | "height">;
+type NodeData = Pick<PositionedNode, "label" | "detail" | "loop" | "href" | "width" | "height">;
 
 function AtlasNode({ data }: NodeProps<NodeData>) {
   return (
@@ -26,6 +26,11 @@ function AtlasNode({ data }: NodeProps<NodeData>) {
       <Handle type="target" position={Position.Top} className="!h-1.5 !w-1.5 !bg-ink-faint" />
       <span className="truncate font-mono text-xs font-semibold text-ink">{data.label}</span>
       {data.detail ? <span className="truncate text-[10px] text-ink-faint">{data.detail}</span> : null}
+      {data.loop ? (
+        <span className="truncate font-mono text-[10px] text-tide-700" title={`maps within itself: ${data.loop}`}>
+          ↻ {data.loop}
+        </span>
+      ) : null}
       <Handle type="source" position={Position.Bottom} className="!h-1.5 !w-1.5 !bg-ink-faint" />
     </div>
   );
@@ -45,7 +50,7 @@ export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; heig
         id: n.id,
         type: "atlas",
         position: { x: n.x, y: n.y },
-        data: { label: n.label, detail: n.detail, href: n.href, width: n.width, height: n.height },
+        data: { label: n.label, detail: n.detail, loop: n.loop, href: n.href, width: n.width, height: n.height },
         ariaLabel: n.detail ? `${n.label} (${n.detail})` : n.label,
       })),
     [layout.nodes],
@@ -75,6 +80,7 @@ export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; heig
         nodesDraggable={false}
         nodesConnectable={false}
         fitView
+        fitViewOptions={{ padding: 0.08 }}
         minZoom={0.1}
         onNodeClick={(_, node) => node.data.href && router.push(node.data.href)}
         onEdgeClick={(_, edge) => edge.data?.href && router.push(edge.data.href)}

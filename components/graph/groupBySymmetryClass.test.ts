@@ -27,9 +27,15 @@ describe("groupBySymmetryClass", () => {
     ]);
   });
 
-  it("keeps a map within one class as a loop on its node", () => {
-    const { edges } = groupBySymmetryClass(members, [{ id: "x", sourceModelId: "eca-30", targetModelId: "eca-86", block: 2 }]);
-    expect(edges[0]).toMatchObject({ source: "class-30", target: "class-30", label: "N=2" });
+  it("shows maps within one class as a loop label on its node, not as an edge", () => {
+    const maps = [
+      { id: "x", sourceModelId: "eca-30", targetModelId: "eca-86", block: 2 },
+      { id: "y", sourceModelId: "eca-30", targetModelId: "eca-30", block: 3 },
+    ];
+    const { edges, nodes } = groupBySymmetryClass(members, maps);
+    expect(edges).toEqual([]);
+    expect(nodes.find((n) => n.id === "class-30")!.loop).toBe("N=2,3 · 2 maps");
+    expect(nodes.find((n) => n.id === "class-90")!.loop).toBeUndefined();
   });
 
   it("marks an edge retracted only when every map behind it is retracted", () => {

@@ -18,7 +18,8 @@ export type SymmetryClassGroup = {
 
 /**
  * Collapses ECA models into one node per symmetry class and the maps between them into one edge per
- * ordered pair of classes, labelled with the block sizes that occur. Maps whose ends are not ECAs
+ * ordered pair of classes, labelled with the block sizes that occur; maps within one class become a
+ * `loop` label on its node (a loop edge would hide behind the node). Maps whose ends are not ECAs
  * in `members` are left out. Retracted maps count only when no certified map joins the same pair.
  */
 export function groupBySymmetryClass(
@@ -51,22 +52,27 @@ export function groupBySymmetryClass(
     pairs.set(key, pair);
   }
 
+  const labelOf = (p: { blocks: Set<number>; count: number }) => {
+    const blocks = [...p.blocks].sort((a, b) => a - b);
+    const parts = [blocks.length ? `N=${blocks.join(",")}` : null, p.count > 1 ? `${p.count} maps` : null];
+    return parts.filter(Boolean).join(" · ") || undefined;
+  };
+  const loops = new Map([...pairs.values()].filter((p) => p.source === p.target).map((p) => [p.source, labelOf(p) ?? "1 map"]));
   const nodes: GraphNode[] = sorted.map((g) => ({
     id: `class-${g.symmetryClass}`,
     label: `class ${g.symmetryClass}`,
     detail: `ECA ${g.rules.join(", ")}`,
+    ...(loops.has(g.symmetryClass) ? { loop: loops.get(g.symmetryClass) } : {}),
     href: hrefFor(g.symmetryClass),
   }));
-  const edges: GraphEdge[] = [...pairs.entries()].map(([key, p]) => {
-    const blocks = [...p.blocks].sort((a, b) => a - b);
-    const parts = [blocks.length ? `N=${blocks.join(",")}` : null, p.count > 1 ? `${p.count} maps` : null];
-    return {
+  const edges: GraphEdge[] = [...pairs.entries()]
+    .filter(([, p]) => p.source !== p.target)
+    .map(([key, p]) => ({
       id: key,
       source: `class-${p.source}`,
       target: `class-${p.target}`,
-      label: parts.filter(Boolean).join(" · ") || undefined,
+      label: labelOf(p),
       retracted: p.live === 0,
-    };
-  });
+    }));
   return { groups: sorted, nodes, edges };
 }

@@ -4,6 +4,8 @@ export type GraphNode = {
   label: string;
   /** A second, smaller line (e.g. the other rules of a symmetry class). */
   detail?: string;
+  /** Maps from the node onto itself (e.g. "N=2"), shown on the node instead of as a loop edge. */
+  loop?: string;
   href?: string;
 };
 

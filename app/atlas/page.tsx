@@ -1,0 +1,129 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { Suspense } from "react";
+import { AtlasFilterForm } from "@/components/atlas/atlas-filter-form";
+import { atlasHref, parseAtlasFilters, type AtlasFilters } from "@/components/atlas/atlasFilters";
+import { CursorPager } from "@/components/atlas/cursor-pager";
+import { MapTable } from "@/components/atlas/map-table";
+import { ModelTable, parseTags } from "@/components/atlas/model-table";
+import { PageHeader } from "@/components/atlas/page-header";
+import { Skeleton } from "@/components/atlas/skeleton";
+import { searchAtlas, type MapKind, type ModelKind } from "@/db/queries/atlas";
+import { MAP_KINDS, MODEL_KINDS } from "@/db/schema";
+import { isAppError } from "@/server/errors";
+import { getWorkspaceContext } from "@/server/context";
+
+export const metadata: Metadata = { title: "Atlas" };
+
+type View = "models" | "maps";
+
+async function Results({ workspaceId, filters, view }: { workspaceId: string; filters: AtlasFilters; view: View }) {
+  let result;
+  try {
+    result = await searchAtlas({
+      workspaceId,
+      target: view,
+      q: filters.q,
+      rule: filters.rule,
+      symmetryClass: filters.class,
+      tag: filters.tag,
+      block: filters.block,
+      mapKind: filters.mapKind as MapKind | undefined,
+      modelKind: filters.kind as ModelKind | undefined,
+      includeRetracted: view === "maps",
+      cursor: filters.cursor,
+      limit: 40,
+    });
+  } catch (err) {
+    if (isAppError(err) && err.field === "cursor") {
+      const { cursor: _drop, ...rest } = filters;
+      return (
+        <p className="rounded-md bg-brick-50 px-3 py-2 text-sm text-brick-700" role="alert">
+          This page link is out of date.{" "}
+          <Link href={atlasHref({ ...rest, view })} className="font-medium underline">
+            Back to the first page
+          </Link>
+        </p>
+      );
+    }
+    throw err;
+  }
+  const pager = <CursorPager filters={{ ...filters, view }} nextCursor={result.nextCursor} />;
+  if (result.items.length === 0) {
+    return <p className="py-6 text-center text-sm text-ink-faint">Nothing in this atlas matches these filters.</p>;
+  }
+  if (result.target === "models") {
+    const rows = result.items.map((m) => ({ ...m, tags: parseTags(m.tags) }));
+    return (
+      <div className="space-y-3">
+        <ModelTable rows={rows} />
+        {pager}
+      </div>
+    );
+  }
+  const rows = result.items.map((m) => ({
+    id: m.id,
+    kind: m.kind,
+    block: m.block,
+    steps: m.steps,
+    summary: m.summary,
+    status: m.status,
+    derivation: m.derivation,
+    from: { id: m.source.id, name: m.source.name },
+    other: { id: m.target.id, name: m.target.name },
+  }));
+  return (
+    <div className="space-y-3">
+      <MapTable rows={rows} otherHeading="Coarse-grains onto" empty="" />
+      {pager}
+    </div>
+  );
+}
+
+export default async function AtlasPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const [{ workspace }, params] = await Promise.all([getWorkspaceContext(), searchParams]);
+  const { filters, problems } = parseAtlasFilters(params, { mapKinds: MAP_KINDS, modelKinds: MODEL_KINDS });
+  const view: View = filters.view ?? (filters.mapKind || filters.block !== undefined ? "maps" : "models");
+  const { cursor: _cursor, view: _view, ...kept } = filters;
+
+  return (
+    <div className="mx-auto max-w-6xl space-y-5 px-5 py-8">
+      <PageHeader
+        eyebrow={workspace.name}
+        title="Atlas"
+        lead="Models are the nodes, certified maps the edges. Every edge carries a certificate that the server checked before storing it."
+        actions={
+          <>
+            <Link href="/atlas/hierarchy" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
+              ECA hierarchy
+            </Link>
+            <Link href="/atlas/ask" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
+              Ask the atlas
+            </Link>
+          </>
+        }
+      />
+      <AtlasFilterForm filters={kept} problems={problems} mapKinds={MAP_KINDS} modelKinds={MODEL_KINDS} />
+      <div role="tablist" aria-label="What to list" className="flex gap-1 border-b border-line">
+        {(["models", "maps"] as const).map((v) => (
+          <Link
+            key={v}
+            role="tab"
+            aria-selected={v === view}
+            href={atlasHref({ ...kept, view: v })}
+            className={`-mb-px border-b-2 px-3 py-1.5 text-sm font-medium ${
+              v === view ? "border-tide-700 text-tide-900" : "border-transparent text-ink-faint hover:text-tide-700"
+            }`}
+          >
+            {v === "models" ? "Models" : "Maps"}
+          </Link>
+        ))}
+      </div>
+      <section className="rounded-[var(--radius-card)] border border-line bg-paper-raised p-4" aria-live="polite">
+        <Suspense key={JSON.stringify({ filters, view })} fallback={<Skeleton lines={8} label="Loading the atlas" />}>
+          <Results workspaceId={workspace.id} filters={filters} view={view} />
+        </Suspense>
+      </section>
+    </div>
+  );
+}
