@@ -95,7 +95,7 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
       }
       await runKind(entry, kind, parsed.data);
     } catch (err) {
-      console.error(`job ${job.id} (${job.kind}) failed:`, err);
+      if (!isAppError(err)) console.error(`job ${job.id} (${job.kind}) failed:`, err);
       await finishJob({ db, id: job.id, status: "failed", error: publicMessage(err) }).catch(() => undefined);
     }
   }

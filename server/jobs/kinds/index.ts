@@ -1,6 +1,5 @@
 import { registerJobKind } from "./registry";
+import { verifyChainKind } from "./verify-chain";
 
-// The product's job kinds register here; importing this module makes them known to the queue and
-// the runner.
-const PRODUCT_KINDS = [] as const;
-for (const kind of PRODUCT_KINDS) registerJobKind(kind);
+// The product's job kinds; importing this module makes them known to the queue and the runner.
+for (const kind of [verifyChainKind]) registerJobKind(kind);

@@ -1,0 +1,108 @@
+import Fraction from "fraction.js";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
+import { setDatabase } from "@/db/queries/connection";
+import { chains, maps } from "@/db/schema";
+import { getChain } from "@/db/queries/chains";
+import { getCertificate } from "@/db/queries/certificates";
+import { certifyDecimation, certifyLumping, type Certificate } from "@/lib/certificate";
+import { closeVerificationPool } from "@/server/atlas/pool";
+import { createInProcessQueue } from "@/server/jobs/in-process-queue";
+import { createJobRunner, type JobRunner } from "@/server/jobs/job-runner";
+import "@/server/jobs/kinds";
+import type { JobQueue } from "@/server/jobs/queue";
+import { seedPeople } from "./jobs-fixtures";
+
+// An invented four-state chain, lumpable by {a,b},{c,d} (Kemeny & Snell, Finite Markov Chains, §6.3:
+// each row of a block puts equal mass on every block): Q = [[3/4, 1/4], [2/3, 1/3]].
+const chain = {
+  kind: "markov",
+  labels: ["a", "b", "c", "d"],
+  matrix: [
+    ["1/2", "1/4", "1/8", "1/8"],
+    ["1/4", "1/2", "0", "1/4"],
+    ["1/3", "1/3", "1/6", "1/6"],
+    ["1/6", "1/2", "1/3", "0"],
+  ],
+};
+
+function built(result: { ok: true; certificate: Certificate } | { ok: false }): Certificate {
+  if (!result.ok) throw new Error("the builder refused a certificate the test expects to hold");
+  return result.certificate;
+}
+
+let t: TestDatabase;
+let queue: JobQueue;
+let runner: JobRunner;
+let ws: string;
+let people: Awaited<ReturnType<typeof seedPeople>>["people"];
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  setDatabase(t.db);
+  ({ workspace: { id: ws }, people } = await seedPeople(t.db));
+  queue = createInProcessQueue({ db: t.db, perUserLimit: 4 });
+  runner = createJobRunner({ db: t.db, workers: 1, pollMs: 100 });
+});
+
+afterAll(async () => {
+  await runner.stop();
+  await closeVerificationPool();
+  setDatabase(null);
+  t.cleanup();
+});
+
+describe("the verify-chain job", () => {
+  it("checks lumping-then-decimation as one composite and stores the links and the chain", async () => {
+    const lumping = built(certifyLumping({ chain, partition: [0, 0, 1, 1] }));
+    const decimation = built(certifyDecimation({ chain: lumping.target, steps: 2 }));
+    const job = await queue.enqueue({
+      workspaceId: ws,
+      ownerId: people.contributor.id,
+      kind: "verify-chain",
+      params: { name: "two-block lumping, two steps", certificates: [lumping, decimation] },
+    });
+    await runner.drain();
+    const done = (await queue.get({ jobId: job.id, workspaceId: ws }))!;
+    expect(done.error).toBeNull();
+    expect(done.status).toBe("succeeded");
+    const result = done.result as { verification: string; composite: string; mapIds: string[]; chainId: string; saved: boolean };
+    expect(result.verification).toBe("links+composite");
+    expect(result.saved).toBe(true);
+    expect(result.mapIds).toHaveLength(2);
+
+    const stored = await getChain({ workspaceId: ws, chainId: result.chainId });
+    expect(stored?.links.map((l) => l.kind)).toEqual(["lumping", "decimation"]);
+    const composite = await getCertificate({ address: result.composite });
+    const body = JSON.parse(composite!.body) as Certificate;
+    // Q² computed independently with fraction.js (a general-purpose exact-rational library).
+    const Q = [
+      [new Fraction(3, 4), new Fraction(1, 4)],
+      [new Fraction(2, 3), new Fraction(1, 3)],
+    ];
+    const Q2 = Q.map((row) => [0, 1].map((j) => row[0].mul(Q[0][j]).add(row[1].mul(Q[1][j])).toFraction()));
+    expect(Q2).toEqual([
+      ["35/48", "13/48"],
+      ["13/18", "5/18"],
+    ]);
+    expect(body.map).toEqual({ kind: "lumping", partition: [0, 0, 1, 1], steps: 2 });
+    expect(body.target).toMatchObject({ kind: "markov", matrix: Q2 });
+  });
+
+  it("fails with the link at fault when two links do not meet, and stores nothing", async () => {
+    const lumping = built(certifyLumping({ chain, partition: [0, 0, 1, 1] }));
+    const offTrack = built(certifyDecimation({ chain, steps: 3 }));
+    const before = { maps: (await t.db.select().from(maps)).length, chains: (await t.db.select().from(chains)).length };
+    const job = await queue.enqueue({
+      workspaceId: ws,
+      ownerId: people.contributor.id,
+      kind: "verify-chain",
+      params: { name: "does not meet", certificates: [lumping, offTrack] },
+    });
+    await runner.drain();
+    const done = (await queue.get({ jobId: job.id, workspaceId: ws }))!;
+    expect(done.status).toBe("failed");
+    expect(done.error).toMatch(/^link 1 ends at .*, but link 2 starts at /);
+    expect({ maps: (await t.db.select().from(maps)).length, chains: (await t.db.select().from(chains)).length }).toEqual(before);
+  });
+});
