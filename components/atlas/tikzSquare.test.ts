@@ -31,6 +31,16 @@ describe("tikzSquare", () => {
     expect(tex.split("\n").filter((l) => l.includes("\\{0,1\\}^{\\mathbb{Z}}"))).toHaveLength(2);
   });
 
+  it("reads a projection certificate from the base CA as blocking then projection, and from a supercell as π alone", () => {
+    const fromBase = tikzSquare({ kind: "projection", block: 3, steps: 3, source: { kind: "eca", rule: 146 }, target: { kind: "eca", rule: 128 } });
+    expect(fromBase).toContain('"f_{146}^{3}"');
+    expect(fromBase).toContain('"\\pi \\circ B_{3}"');
+    const fromSupercell = tikzSquare({ kind: "projection", block: 3, source: { kind: "supercell", alphabet: 8 }, target: { kind: "eca", rule: 128 } });
+    expect(fromSupercell).toContain('\\arrow[r, "F"]');
+    expect(fromSupercell).toContain('"\\pi"\'');
+    expect(fromSupercell).toContain("\\{0,\\dots,7\\}^{\\mathbb{Z}}");
+  });
+
   it("uses the steps when they differ from the block size (T ≠ N)", () => {
     const tex = tikzSquare({ kind: "coarse-graining", block: 2, steps: 4, source: { kind: "eca", rule: 90 }, target: { kind: "eca", rule: 90 } });
     expect(tex).toContain('"f_{90}^{4}"');

@@ -28,6 +28,7 @@ function space(end: SquareEnd): string {
 
 function dynamics(end: SquareEnd, letter: "f" | "g", chainLetter: "P" | "Q"): string {
   if (isChain(end)) return chainLetter;
+  if (end.kind === "supercell") return letter.toUpperCase();
   return end.rule !== null && end.rule !== undefined ? `${letter}_{${end.rule}}` : letter;
 }
 
@@ -77,7 +78,13 @@ export function squareParts(input: SquareInput): { topLeft: string; bottomLeft: 
       if (!target.alphabet) bottomLeft = `(${stripZ(topLeft)}^{${block ?? "N"}})^{\\mathbb{Z}}`;
       break;
     case "projection":
-      down = "\\pi";
+      // From a supercell model the square is F / π; from the base CA it is blocking then projection.
+      if (source.kind === "supercell") {
+        down = "\\pi";
+        break;
+      }
+      top = power(top, steps);
+      down = `\\pi \\circ B_{${block ?? "N"}}`;
       break;
     case "coarse-graining":
       top = power(top, steps);
