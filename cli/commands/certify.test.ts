@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { join } from "node:path";
 import { run } from "./certify";
-import { FIXTURES, runCli, tempDir } from "./testSupport";
+import { FIXTURES, runCli, tempDir } from "@/cli/shared/testSupport";
 
 describe("cli certify", () => {
   it("prints the certificate for rule 105 → 150 at block 2 by parity (Israeli & Goldenfeld 2004) and exits 0", async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { run as certify } from "./certify";
 import { run } from "./compose";
-import { runCli, tempDir } from "./testSupport";
+import { runCli, tempDir } from "@/cli/shared/testSupport";
 
 describe("cli compose", () => {
   it("pastes 146 → 128 (block 3) and 128 → 128 (block 2) into 146 → 128 at block 6 and says how it was verified", async () => {

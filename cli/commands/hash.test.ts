@@ -3,7 +3,7 @@ import { createHash } from "node:crypto";
 import canonicalize from "canonicalize";
 import { run as certify } from "./certify";
 import { run } from "./hash";
-import { runCli, tempDir } from "./testSupport";
+import { runCli, tempDir } from "@/cli/shared/testSupport";
 
 describe("cli hash", () => {
   it("prints sha256 of the RFC 8785 form of the certificate without its seal, the same for a re-spelled file", async () => {

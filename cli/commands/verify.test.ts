@@ -2,7 +2,7 @@ import { describe, expect, it } from "vitest";
 import { execFileSync } from "node:child_process";
 import { run as certify } from "./certify";
 import { run } from "./verify";
-import { runCli, tempDir } from "./testSupport";
+import { runCli, tempDir } from "@/cli/shared/testSupport";
 
 async function certificate(args: string[]): Promise<string> {
   const r = await runCli(certify, args);
