@@ -30,6 +30,8 @@ export function requireHolds(outcome: VerifyOutcome, field = "certificate"): Ver
         }),
       );
     case "model":
+    case "chain":
+    case "broken-chain":
       return fail(new AppError("internal", "The verification worker answered a different question."));
   }
 }

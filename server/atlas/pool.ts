@@ -37,7 +37,7 @@ type TaskWithoutLimits = VerifyTask extends infer T ? (T extends { limits: Limit
  * bound terminates the thread and answers 413, like a check refused by the size limits.
  */
 export async function runVerification(task: TaskWithoutLimits, bounds = VERIFY_LIMITS): Promise<VerifyOutcome> {
-  const full = ("op" in task && task.op !== "model" ? { ...task, limits: bounds.sizes } : task) as VerifyTask;
+  const full = (task.op === "model" ? task : { ...task, limits: bounds.sizes }) as VerifyTask;
   const abort = new AbortController();
   let timedOut = false;
   const timer = setTimeout(() => {

@@ -1,5 +1,5 @@
 import "server-only";
-import { createCertifiedEdge, upsertModel } from "@/db/queries/atlas";
+import { createCertifiedEdge, createChain, getCertificate, getMap, upsertModel } from "@/db/queries/atlas";
 import { findMapIdByCertificate } from "@/db/queries/maps";
 import type { Model } from "@/db/schema";
 import { env } from "@/env";
@@ -92,4 +92,62 @@ async function store({ workspaceId, userId, verified }: { workspaceId: string; u
     map: { kind: verified.kind, block: verified.block, steps: verified.steps, summary: verified.text },
     linkBase: env.APP_URL,
   });
+}
+
+/**
+ * Stores a chain of this workspace's certified maps after the server has verified it: every link's
+ * certificate, each link's target equal to the next one's source, and the composite certificate
+ * directly when it fits the limits. A broken chain answers 422 naming the link (`mapIds.<i>`).
+ */
+export async function submitChain({
+  workspaceId,
+  userId,
+  name,
+  mapIds,
+}: {
+  workspaceId: string;
+  userId: string;
+  name: string;
+  mapIds: string[];
+}): Promise<{ status: "created" | "existing"; chainId: string; address: string; verification: "links" | "links+composite" }> {
+  if (mapIds.length === 0) throw new AppError("bad_input", "A chain needs at least one map.", { field: "mapIds" });
+  const certificates: unknown[] = [];
+  for (const [i, mapId] of mapIds.entries()) {
+    const map = await getMap({ workspaceId, mapId });
+    if (!map) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: `mapIds.${i}`, details: { link: i } });
+    if (map.status !== "certified") {
+      throw new AppError("conflict", `Link ${i + 1} was retracted: ${map.retractedReason ?? "no reason given"}.`, {
+        field: `mapIds.${i}`,
+        details: { link: i },
+      });
+    }
+    const cert = await getCertificate({ address: map.certificateAddress });
+    if (!cert) throw new AppError("internal", `The certificate of map ${mapId} is missing.`);
+    certificates.push(JSON.parse(cert.body));
+  }
+  const outcome = await runVerification({ op: "chain", certificates });
+  if (outcome.status === "broken-chain") {
+    throw new AppError("does_not_commute", outcome.reason, {
+      field: outcome.link >= 0 ? `mapIds.${outcome.link}` : "mapIds",
+      details: { link: outcome.link >= 0 ? outcome.link : null, reason: outcome.reason },
+    });
+  }
+  if (outcome.status !== "chain") throw new AppError("internal", "The verification worker answered a different question.");
+  const { composite, verification } = outcome;
+  const stored = await createChain({
+    workspaceId,
+    userId,
+    name,
+    mapIds,
+    composite: {
+      address: composite.address,
+      kind: composite.kind,
+      formatVersion: composite.formatVersion,
+      body: composite.body,
+      checkerVersion: composite.checkerVersion,
+      verifiedAt: new Date(),
+    },
+    verification,
+  });
+  return { ...stored, verification };
 }

@@ -4,6 +4,7 @@
  */
 import type { ModelFields } from "@/db/queries/models";
 import {
+  certificateAddress,
   certificateSummary,
   certificateText,
   certifyBlocking,
@@ -14,8 +15,10 @@ import {
   CERTIFICATE_VERSION,
   type Certificate,
 } from "@/lib/certificate";
+import { composeChain } from "@/lib/chain";
 import { canonicalModel, ModelInputError } from "@/lib/models";
-import { verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
+import { symmetryClass } from "@/lib/symmetry";
+import { CHECKER_VERSION, verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
 import { modelFields } from "./model-fields";
 
 /** Ask the server to build the certificate from a claim (what a script sends when it has no builder). */
@@ -29,7 +32,8 @@ export type BuildRequest =
 export type VerifyTask =
   | { op: "verify"; certificate: unknown; limits: Limits }
   | { op: "build"; build: BuildRequest; limits: Limits }
-  | { op: "model"; model: unknown };
+  | { op: "model"; model: unknown }
+  | { op: "chain"; certificates: unknown[]; limits: Limits };
 
 /** A verified certificate, ready to be written: plain data (it crosses a thread boundary). */
 export type Verified = {
@@ -49,7 +53,9 @@ export type Verified = {
 export type VerifyOutcome =
   | Verified
   | Exclude<VerifyResult, { status: "holds" }>
-  | { status: "model"; fields: ModelFields };
+  | { status: "model"; fields: ModelFields }
+  | { status: "chain"; composite: Verified; verification: "links" | "links+composite" }
+  | { status: "broken-chain"; link: number; reason: string };
 
 export function runVerifyTask(task: VerifyTask): VerifyOutcome {
   switch (task.op) {
@@ -57,9 +63,15 @@ export function runVerifyTask(task: VerifyTask): VerifyOutcome {
       return described(verifyCertificate(task.certificate, task.limits));
     case "build":
       return build(task.build, task.limits);
+    case "chain": {
+      const result = composeChain(task.certificates as Certificate[], task.limits);
+      if (!result.ok) return { status: "broken-chain", link: result.link, reason: result.reason };
+      const composite = verifiedFields(result.composite, "");
+      return { status: "chain", composite, verification: result.verification };
+    }
     case "model":
       try {
-        return { status: "model", fields: modelFields(canonicalModel(task.model)) };
+        return { status: "model", fields: modelFields(canonicalModel(task.model), symmetryClass) };
       } catch (e) {
         if (e instanceof ModelInputError) return { status: "malformed", issues: e.issues };
         return { status: "malformed", issues: [{ path: "", message: e instanceof Error ? e.message : String(e) }] };
@@ -95,18 +107,23 @@ const builders: Record<BuildRequest["kind"], (r: never) => { ok: true; certifica
 
 function described(result: VerifyResult): VerifyOutcome {
   if (result.status !== "holds") return result;
-  const summary = certificateSummary(result.certificate);
+  return verifiedFields(result.certificate, result.checkerVersion);
+}
+
+/** The stored form of a verified certificate; `checkerVersion` "" when the caller fills it in. */
+function verifiedFields(certificate: Certificate, checkerVersion: string): Verified {
+  const summary = certificateSummary(certificate);
   return {
     status: "holds",
-    address: result.address,
-    body: certificateText(result.certificate),
-    checkerVersion: result.checkerVersion,
+    address: certificateAddress(certificate),
+    body: certificateText(certificate),
+    checkerVersion: checkerVersion || CHECKER_VERSION,
     formatVersion: CERTIFICATE_VERSION,
     kind: summary.kind,
     block: summary.block ?? null,
     steps: summary.steps ?? null,
     text: summary.text,
-    source: modelFields(summary.source),
-    target: modelFields(summary.target),
+    source: modelFields(summary.source, symmetryClass),
+    target: modelFields(summary.target, symmetryClass),
   };
 }

@@ -2,9 +2,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sql } from "drizzle-orm";
 import { getMap, setDatabase } from "@/db/queries/atlas";
 import { auditEvents, certificates, maps, models, notificationOutbox } from "@/db/schema";
-import { certifyLumping, sealCertificate } from "@/lib/certificate";
+import { certifyDecimation, certifyLumping, sealCertificate } from "@/lib/certificate";
 import { closeVerificationPool, runVerification } from "@/server/atlas/pool";
-import { ensureModel, submitBuild, submitCertificate } from "@/server/atlas/submit";
+import { ensureModel, submitBuild, submitCertificate, submitChain } from "@/server/atlas/submit";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { seedAtlasPeople } from "./atlas-fixtures";
 
@@ -112,6 +112,29 @@ describe("server-side verification in a worker thread", () => {
     await expect(ensureModel({ workspaceId: ws, userId, model: { kind: "eca", rule: 300 } })).rejects.toMatchObject({
       code: "bad_input",
       field: expect.stringMatching(/^model/),
+    });
+  });
+
+  it("a chain decimation-then-lumping of the Oz chain is stored once; a chain whose links do not meet is refused at that link", async () => {
+    // Lumping commutes with decimation (DOMAIN.md §3): P² of a lumpable chain lumps by the same partition.
+    const dec = certifyDecimation({ chain: OZ, steps: 2 });
+    if (!dec.ok) throw new Error("unreachable");
+    const lump = certifyLumping({ chain: dec.certificate.target, partition: LUMPABLE });
+    if (!lump.ok) throw new Error("P² of the Oz chain should lump by {R, S}, {N}");
+    const first = await submitCertificate({ workspaceId: ws, userId, certificate: dec.certificate });
+    const second = await submitCertificate({ workspaceId: ws, userId, certificate: lump.certificate });
+    const chain = await submitChain({ workspaceId: ws, userId, name: "Oz, two days, lumped", mapIds: [first.mapId, second.mapId] });
+    expect(chain.status).toBe("created");
+    expect(chain.verification).toBe("links+composite");
+    const again = await submitChain({ workspaceId: ws, userId, name: "again", mapIds: [first.mapId, second.mapId] });
+    expect(again).toMatchObject({ status: "existing", chainId: chain.chainId });
+    const before = await rowCounts();
+    const err = await submitChain({ workspaceId: ws, userId, name: "backwards", mapIds: [second.mapId, first.mapId] }).catch((e: unknown) => e);
+    expect(err).toMatchObject({ code: "does_not_commute", field: "mapIds.0", details: { link: 0 } });
+    expect(await rowCounts()).toEqual(before);
+    await expect(submitChain({ workspaceId: ws, userId, name: "x", mapIds: [first.mapId, "no-such-map"] })).rejects.toMatchObject({
+      code: "not_found",
+      field: "mapIds.1",
     });
   });
 });

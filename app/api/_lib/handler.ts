@@ -1,9 +1,9 @@
 import "server-only";
 import type { z } from "zod";
 import { AppError, toResponse } from "@/server/errors";
+import { MAX_BODY_BYTES } from "./handler-limits";
 
-/** Request bodies above this are refused with 413 before they are parsed. */
-export const MAX_BODY_BYTES = 2 * 1024 * 1024;
+export { MAX_BODY_BYTES };
 
 type RouteContext<P> = { params: Promise<P> };
 

@@ -1,0 +1,26 @@
+import { searchAtlas } from "@/db/queries/atlas";
+import type { Model } from "@/db/schema";
+import { ensureModel } from "@/server/atlas/submit";
+import { authorize, resolveActor } from "../_lib/actor";
+import { parseBody, parseQuery, route } from "../_lib/handler";
+import { modelJson } from "../_lib/schemas";
+import { CreateBody, ListQuery } from "./schema";
+
+export const GET = route(async (request) => {
+  const { kind, ...query } = parseQuery(request, ListQuery);
+  const actor = await resolveActor(request);
+  authorize(actor, "atlas:read");
+  const page = await searchAtlas({ workspaceId: actor.workspace.id, target: "models", modelKind: kind, ...query });
+  return Response.json({ items: (page.items as Model[]).map(modelJson), nextCursor: page.nextCursor });
+});
+
+export const POST = route(async (request) => {
+  const body = await parseBody(request, CreateBody);
+  const actor = await resolveActor(request);
+  authorize(actor, "model:create");
+  const stored = await ensureModel({ workspaceId: actor.workspace.id, userId: actor.user.id, model: body.model });
+  return Response.json(
+    { status: stored.status, model: modelJson(stored.model) },
+    { status: stored.status === "created" ? 201 : 200 },
+  );
+});
