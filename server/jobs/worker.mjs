@@ -1,4 +1,4 @@
-/* global AbortController */
+/* global AbortController, AbortSignal */
 // The job worker thread. A plain ES module so that it loads the same way under `next start`,
 // vitest, tsx and plain node: it enables TypeScript through tsx's scoped loader and imports the
 // job kind's compute module, which depends on lib/ alone (no database, no Next).
@@ -25,6 +25,15 @@ function loadModule(file) {
 export default async function runJobTask(task) {
   const flag = new Int32Array(task.cancelFlag);
   const controller = new AbortController();
+  // Searches poll `signal.aborted` between nodes; reading the flag there stops them within a node.
+  const nativeAborted = Object.getOwnPropertyDescriptor(AbortSignal.prototype, "aborted").get;
+  Object.defineProperty(controller.signal, "aborted", {
+    configurable: true,
+    get() {
+      if (!nativeAborted.call(this) && Atomics.load(flag, 0) === 1) controller.abort();
+      return nativeAborted.call(this);
+    },
+  });
   let lastPost = 0;
   let lastFraction = -1;
   const onProgress = (fraction, item) => {

@@ -1,0 +1,94 @@
+// Runs in a job worker thread: lib/ only. Turns search results into certificates to submit and
+// search records to store (what was searched, so that negative results are kept too).
+import { certifyProjection, type Certificate } from "@/lib/certificate";
+import type { Coverage, PartitionAtlasRow, ProjectionAtlasRow } from "@/lib/discovery";
+import { canonicalModel, modelAddress } from "@/lib/models";
+
+export type Finding = { rule: number; what: string; certificate: Certificate };
+
+/** A search_records row before it has a model id: one per rule and search kind. */
+export type RecordDraft = {
+  rule: number;
+  kind: "binary-projections" | "congruences";
+  maxBlock: number | null;
+  algorithm: string;
+  algorithmVersion: string;
+  coverage: Record<string, unknown>;
+  outcome: { targets: string[] } & Record<string, unknown>;
+};
+
+export type CaFindings = { findings: Finding[]; records: RecordDraft[]; skipped: string[] };
+
+const ecaAddress = (rule: number) => modelAddress(canonicalModel({ kind: "eca", rule }));
+
+function certify(rule: number, block: number, projection: string | number[], what: string, out: CaFindings): void {
+  const built = certifyProjection({ rule, block, projection });
+  // The search and the checker are separate programs; a disagreement is reported, never stored.
+  if (built.ok) out.findings.push({ rule, what, certificate: built.certificate });
+  else out.skipped.push(`${what}: the checker found a counterexample`);
+}
+
+/**
+ * Binary projections: one certificate per (rule, block, target) with the search's example
+ * projection, and per rule a record of the block sizes covered and every target reached there.
+ */
+export function projectionFindings(rows: ProjectionAtlasRow[], rules: number[], coverage: Coverage, out: CaFindings): void {
+  const covered = new Set(coverage.blocks);
+  const targets = new Map<number, Map<number, { block: number; count: string }[]>>();
+  for (const row of rows) {
+    certify(row.rule, row.block, row.example, `rule ${row.rule} → rule ${row.target} at block ${row.block}`, out);
+    if (!covered.has(row.block)) continue;
+    const byTarget = targets.get(row.rule) ?? new Map();
+    byTarget.set(row.target, [...(byTarget.get(row.target) ?? []), { block: row.block, count: row.count.toString() }]);
+    targets.set(row.rule, byTarget);
+  }
+  if (coverage.blocks.length === 0) return;
+  for (const rule of rules) {
+    const found = [...(targets.get(rule) ?? new Map<number, { block: number; count: string }[]>()).entries()].sort((a, b) => a[0] - b[0]);
+    out.records.push({
+      rule,
+      kind: "binary-projections",
+      maxBlock: Math.max(...coverage.blocks),
+      algorithm: coverage.algorithm,
+      algorithmVersion: coverage.version,
+      coverage: { rule, blocks: coverage.blocks, steps: "T = N", coarseAlphabet: 2, targetKinds: ["eca"], exhaustive: true },
+      outcome: {
+        targets: found.map(([target]) => ecaAddress(target)),
+        byTarget: found.map(([target, where]) => ({ target, blocks: where })),
+      },
+    });
+  }
+}
+
+/**
+ * Congruences (partitions of the block states): the smallest block with a proper congruence per
+ * rule, certified as a projection onto the classes. A record of "none up to block N" rules out every
+ * partition coarse-graining at those sizes; a found one does not rule out other targets.
+ */
+export function partitionFindings(rows: PartitionAtlasRow[], minBlock: number, coverage: Coverage, out: CaFindings): void {
+  const maxCovered = coverage.blocks.length ? Math.max(...coverage.blocks) : null;
+  for (const row of rows) {
+    let target: string | null = null;
+    if (row.block !== null && row.partition) {
+      const before = out.findings.length;
+      certify(row.rule, row.block, row.partition, `rule ${row.rule}: ${row.classes} classes at block ${row.block}`, out);
+      if (out.findings.length > before) target = modelAddress(out.findings[out.findings.length - 1].certificate.target);
+    }
+    const searchedTo = row.block ?? maxCovered;
+    if (searchedTo === null) continue;
+    const blocks = Array.from({ length: searchedTo - minBlock + 1 }, (_, i) => minBlock + i);
+    out.records.push({
+      rule: row.rule,
+      kind: "congruences",
+      maxBlock: searchedTo,
+      algorithm: coverage.algorithm,
+      algorithmVersion: coverage.version,
+      coverage: { rule: row.rule, blocks, steps: "T = N", targetKinds: row.block === null ? ["ca", "eca"] : [], exhaustive: row.block === null },
+      outcome: {
+        targets: target ? [target] : [],
+        properCongruence: row.block !== null,
+        ...(row.block !== null ? { smallestBlock: row.block, classes: row.classes, maximal: row.maximal, partition: row.partition } : {}),
+      },
+    });
+  }
+}

@@ -1,0 +1,74 @@
+// Runs in a job worker thread: lib/ only.
+import { z } from "zod";
+import { coverageRecord, searchBinaryProjections, searchCongruences, type PartitionAtlasRow, type ProjectionAtlasRow, type Coverage } from "@/lib/discovery";
+import { partitionFindings, projectionFindings, type CaFindings } from "./ca-findings.compute";
+import type { ComputeContext } from "./types";
+
+export const SearchProjectionParams = z
+  .strictObject({
+    rule: z.number().int().min(0).max(255).meta({ description: "ECA rule number (Wolfram code)." }),
+    minBlock: z.number().int().min(2).max(6).default(2),
+    maxBlock: z.number().int().min(2).max(6).default(4),
+    search: z.enum(["projections", "partitions", "both"]).default("both"),
+  })
+  .refine((p) => p.minBlock <= p.maxBlock, { path: ["maxBlock"], message: "maxBlock must be at least minBlock" });
+export type SearchProjectionParams = z.infer<typeof SearchProjectionParams>;
+
+export type SearchProjectionOutput = CaFindings & { stopped: "cancelled" | "deadline" | null; coverage: Coverage[] };
+
+const range = (from: number, to: number) => Array.from({ length: to - from + 1 }, (_, i) => from + i);
+
+/** One ECA over block sizes minBlock…maxBlock: every binary projection by target, and/or the first proper congruence. */
+export function compute(params: SearchProjectionParams, context: ComputeContext): SearchProjectionOutput {
+  const out: SearchProjectionOutput = { findings: [], records: [], skipped: [], stopped: null, coverage: [] };
+  const blocks = range(params.minBlock, params.maxBlock);
+  const wants = (kind: "projections" | "partitions") => params.search === kind || params.search === "both";
+  const kindCount = params.search === "both" ? 2 : 1;
+  // Work grows as 8^N (2^(3N) windows), so progress is weighted by it.
+  const weight = blocks.map((N) => 8 ** N);
+  const total = weight.reduce((a, b) => a + b, 0) * kindCount;
+  let done = 0;
+  const progress = (w: number) => (f: number, item: string) => context.onProgress((done + f * w) / total, item);
+
+  if (wants("projections")) {
+    const rows: ProjectionAtlasRow[] = [];
+    const covered: number[] = [];
+    for (const [i, block] of blocks.entries()) {
+      const search = searchBinaryProjections({ rule: params.rule, block, signal: context.signal, onProgress: progress(weight[i]) });
+      done += weight[i];
+      if (search.stopped) {
+        out.stopped = search.stopped;
+        break;
+      }
+      covered.push(block);
+      for (const t of search.targets) rows.push({ rule: params.rule, symmetryClass: -1, block, target: t.target, count: t.count, example: t.example });
+    }
+    const coverage = coverageRecord("projections", [params.rule], covered, out.stopped, out.stopped ? `rule ${params.rule}` : null);
+    out.coverage.push(coverage);
+    projectionFindings(rows, [params.rule], coverage, out);
+    if (out.stopped) return out;
+  }
+
+  if (wants("partitions")) {
+    let row: PartitionAtlasRow = { rule: params.rule, symmetryClass: -1, block: null, classes: null, partition: null, target: null, maximal: false };
+    const covered: number[] = [];
+    for (const [i, block] of blocks.entries()) {
+      const search = searchCongruences({ rule: params.rule, block, signal: context.signal, onProgress: progress(weight[i]) });
+      done += weight[i];
+      if (search.stopped) {
+        out.stopped = search.stopped;
+        break;
+      }
+      covered.push(block);
+      const coarsest = search.congruences[0];
+      if (coarsest) {
+        row = { ...row, block, classes: coarsest.classes, partition: coarsest.partition, target: coarsest.target, maximal: coarsest.maximal };
+        break;
+      }
+    }
+    const coverage = coverageRecord("partitions", [params.rule], covered, out.stopped, out.stopped ? `rule ${params.rule}` : null);
+    out.coverage.push(coverage);
+    if (covered.length > 0) partitionFindings([row], params.minBlock, coverage, out);
+  }
+  return out;
+}

@@ -1,0 +1,106 @@
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
+import { setDatabase } from "@/db/queries/connection";
+import { listMapsFrom } from "@/db/queries/maps";
+import { getModel } from "@/db/queries/models";
+import { listSearchRecords } from "@/db/queries/search";
+import { searchRecords } from "@/db/schema";
+import { canonicalModel, modelAddress } from "@/lib/models";
+import { closeVerificationPool } from "@/server/atlas/pool";
+import { createInProcessQueue } from "@/server/jobs/in-process-queue";
+import { createJobRunner, type JobRunner } from "@/server/jobs/job-runner";
+import "@/server/jobs/kinds";
+import type { JobQueue } from "@/server/jobs/queue";
+import { seedPeople } from "./jobs-fixtures";
+
+let t: TestDatabase;
+let queue: JobQueue;
+let runner: JobRunner;
+let ws: string;
+let people: Awaited<ReturnType<typeof seedPeople>>["people"];
+
+beforeAll(async () => {
+  t = await createTestDatabase();
+  setDatabase(t.db);
+  ({ workspace: { id: ws }, people } = await seedPeople(t.db));
+  queue = createInProcessQueue({ db: t.db, perUserLimit: 4 });
+  runner = createJobRunner({ db: t.db, workers: 1, pollMs: 100 });
+});
+
+afterAll(async () => {
+  await runner.stop();
+  await closeVerificationPool();
+  setDatabase(null);
+  t.cleanup();
+});
+
+const eca = (rule: number) => modelAddress(canonicalModel({ kind: "eca", rule }));
+
+async function run(kind: string, params: unknown) {
+  const job = await queue.enqueue({ workspaceId: ws, ownerId: people.contributor.id, kind, params });
+  await runner.drain();
+  return (await queue.get({ jobId: job.id, workspaceId: ws }))!;
+}
+
+async function recordsOf(rule: number) {
+  const model = await getModel({ workspaceId: ws, idOrAddress: eca(rule) });
+  const records = await listSearchRecords({ workspaceId: ws, modelId: model!.id });
+  return { model: model!, records: records.map((r) => ({ ...r, coverage: JSON.parse(r.coverage), outcome: JSON.parse(r.outcome) })) };
+}
+
+describe("the eca-atlas job", () => {
+  it("submits every coarse-graining found at block 2 and records one search per rule and kind", async () => {
+    const done = await run("eca-atlas", { minBlock: 2, maxBlock: 2, search: "both" });
+    expect(done.error).toBeNull();
+    expect(done.status).toBe("succeeded");
+    const result = done.result as { found: number; certificates: { created: number; existing: number; refused: unknown[] }; searchRecords: number };
+    expect(result.certificates.refused).toEqual([]);
+    expect(result.certificates.created + result.certificates.existing).toBe(result.found);
+    expect(result.searchRecords).toBe(512);
+    expect(await t.db.select().from(searchRecords)).toHaveLength(512);
+  });
+
+  it("finds what follows from the definitions for the identity, the shift and the zero rule", async () => {
+    // Rule 204 is the identity and rule 170 copies the right neighbour (DOMAIN.md, Wolfram code): every
+    // one of the 2^4 − 2 = 14 onto-{0,1} projections of 2-cell blocks commutes, with the rule itself as
+    // target (derived by hand from the definitions).
+    for (const rule of [204, 170]) {
+      const { records } = await recordsOf(rule);
+      const projections = records.find((r) => r.kind === "binary-projections")!;
+      expect(projections.coverage.blocks).toEqual([2]);
+      expect(projections.outcome.targets).toEqual([eca(rule)]);
+      expect(projections.outcome.byTarget).toEqual([{ target: rule, blocks: [{ block: 2, count: "14" }] }]);
+    }
+    // Rule 0 sends every window to 0: a projection commutes exactly when the coarse rule is the constant
+    // p(00) — 0 for the 7 projections with p(00) = 0, 255 for the 7 with p(00) = 1 (by hand).
+    const zero = await recordsOf(0);
+    const projections = zero.records.find((r) => r.kind === "binary-projections")!;
+    expect(projections.outcome.byTarget).toEqual([
+      { target: 0, blocks: [{ block: 2, count: "7" }] },
+      { target: 255, blocks: [{ block: 2, count: "7" }] },
+    ]);
+    const fromZero = await listMapsFrom({ workspaceId: ws, modelId: zero.model.id, limit: 200 });
+    expect(fromZero.items.filter((m) => m.kind === "projection").map((m) => m.target.rule).sort((a, b) => a! - b!)).toEqual([0, 255]);
+  });
+});
+
+describe("the search-projection job", () => {
+  it("finds rule 146 → rule 128 at block 3 and stores it with the search that found it", async () => {
+    const done = await run("search-projection", { rule: 146, minBlock: 3, maxBlock: 3, search: "projections" });
+    expect(done.status).toBe("succeeded");
+    // Israeli & Goldenfeld, Phys. Rev. Lett. 92, 074105 (2004): rule 146 coarse-grains onto rule 128 at
+    // block size 3 (the pairing is recalled from memory).
+    const { model, records } = await recordsOf(146);
+    const maps = await listMapsFrom({ workspaceId: ws, modelId: model.id, block: 3, limit: 200 });
+    expect(maps.items.map((m) => m.target.rule)).toContain(128);
+    const block3 = records.find((r) => r.kind === "binary-projections" && r.maxBlock === 3)!;
+    expect(block3.jobId).toBe(done.id);
+    expect(block3.outcome.targets).toContain(eca(128));
+  });
+
+  it("refuses a rule out of range with a 400 naming params.rule", async () => {
+    const err = await queue.enqueue({ workspaceId: ws, ownerId: people.contributor.id, kind: "search-projection", params: { rule: 256 } }).catch((e) => e);
+    expect(err.status).toBe(400);
+    expect(err.field).toBe("params.rule");
+  });
+});
