@@ -2,8 +2,7 @@ import type { NextAuthConfig } from "next-auth";
 import { env } from "@/env";
 
 /**
- * The part of the auth configuration that needs no database: the proxy builds its session check
- * from this alone, and `auth.ts` adds the providers.
+ * The part of the auth configuration that needs no database; `auth.ts` adds the providers.
  */
 export const authConfig = {
   secret: env.AUTH_SECRET,
@@ -13,10 +12,6 @@ export const authConfig = {
   pages: { signIn: "/sign-in" },
   providers: [],
   callbacks: {
-    /** Used only by the proxy: signed-out visitors of protected pages go to the sign-in page. */
-    authorized({ auth }) {
-      return Boolean(auth?.user);
-    },
     jwt({ token, user }) {
       if (user?.id) token.sub = user.id;
       return token;

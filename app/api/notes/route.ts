@@ -45,7 +45,7 @@ export async function POST(request: Request) {
     const parsed = NoteInput.safeParse(body);
     if (!parsed.success) {
       const issue = parsed.error.issues[0];
-      throw new AppError("bad_input", issue.message, { field: `body.${issue.path.join(".") || "text"}` });
+      throw new AppError("bad_input", issue.message, { field: issue.path.length ? `body.${issue.path.join(".")}` : "body" });
     }
     const { userId, workspaceId, role } = await currentMembership();
     if (!can(role, "note:post")) throw new AppError("forbidden", refusalReason(role, "note:post"));
