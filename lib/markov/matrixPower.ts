@@ -21,7 +21,8 @@ export function matrixPower(p: Matrix, k: number): Matrix {
     if (e > 1) square = multiply(square, square);
   }
   const out = result as Scaled;
-  return out.num.map((row) => row.map((x) => reduceOver(x, out.den, base.den)));
+  const factors = knownFactors(base.den);
+  return out.num.map((row) => row.map((x) => reduceOver(x, out.den, base.den, factors)));
 }
 
 function toScaled(p: Matrix): Scaled {
@@ -47,13 +48,43 @@ function multiply(a: Scaled, b: Scaled): Scaled {
   return { num, den: a.den * b.den };
 }
 
+type Factor = { p: bigint; chunk: bigint };
+
+/** Prime factors of D below 10^5 (with the largest power of each below 2^52, divided out in one step), and any cofactor. */
+function knownFactors(d: bigint): Factor[] {
+  const factors: Factor[] = [];
+  const add = (p: bigint) => {
+    let chunk = p;
+    while (chunk * p < 2n ** 52n) chunk *= p;
+    factors.push({ p, chunk });
+  };
+  for (let p = 2n; p < 100_000n && p * p <= d; p += p === 2n ? 1n : 2n) {
+    if (d % p !== 0n) continue;
+    add(p);
+    while (d % p === 0n) d /= p;
+  }
+  if (d > 1n) add(d);
+  return factors;
+}
+
 /**
- * num/den in lowest terms when every prime factor of den divides `small`: any common prime of num and
- * den then divides gcd(num, den, small), so dividing out that gcd until it is 1 leaves the fraction reduced.
- * Each gcd is taken against `small`, never between two huge numbers.
+ * num/den in lowest terms when every prime factor of den divides `small`. Known factors of `small` are
+ * divided out first, many at a time (division by a one-limb number is cheap). Then, since any common prime
+ * of num and den divides gcd(num, den, small), dividing out that gcd until it is 1 leaves the fraction
+ * reduced whatever the factors were; every gcd is taken against `small`, never between two huge numbers.
  */
-function reduceOver(num: bigint, den: bigint, small: bigint): Rational {
+function reduceOver(num: bigint, den: bigint, small: bigint, factors: Factor[]): Rational {
   if (num === 0n) return { num: 0n, den: 1n };
+  for (const { p, chunk } of factors) {
+    while (num % chunk === 0n && den % chunk === 0n) {
+      num /= chunk;
+      den /= chunk;
+    }
+    while (num % p === 0n && den % p === 0n) {
+      num /= p;
+      den /= p;
+    }
+  }
   for (;;) {
     const g = gcd(num % small, gcd(den % small, small));
     if (g === 1n) return { num, den };
