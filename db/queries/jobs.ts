@@ -43,11 +43,15 @@ export async function getJob({ db = getDatabase(), ...input }: { db?: Executor }
 
 /** Newest first, paginated by an opaque cursor (the sort key of the previous page's last row). */
 export async function listJobs(
-  { db = getDatabase(), ...input }: { db?: Executor } & { workspaceId: string; ownerId?: string; status?: Job["status"]; cursor?: string | null; limit?: number },
+  {
+    db = getDatabase(),
+    ...input
+  }: { db?: Executor } & { workspaceId: string; ownerId?: string; kind?: string; status?: Job["status"]; cursor?: string | null; limit?: number },
 ): Promise<{ items: Job[]; nextCursor: string | null }> {
   const limit = input.limit ?? 20;
   const conditions = [eq(jobs.workspaceId, input.workspaceId)];
   if (input.ownerId) conditions.push(eq(jobs.ownerId, input.ownerId));
+  if (input.kind) conditions.push(eq(jobs.kind, input.kind));
   if (input.status) conditions.push(eq(jobs.status, input.status));
   if (input.cursor) {
     const [ms, id] = decodeCursor(input.cursor, 2);

@@ -27,6 +27,7 @@ export type JobActor = { userId: string; role: Role };
 export type ListJobsInput = {
   workspaceId: string;
   ownerId?: string;
+  kind?: string;
   status?: Job["status"];
   cursor?: string | null;
   limit?: number;
