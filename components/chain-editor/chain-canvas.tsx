@@ -53,6 +53,7 @@ export function ChainCanvas({ nodes, edges }: { nodes: CanvasNode[]; edges: Canv
         </p>
       ) : (
         <ReactFlow
+          key={nodes.map((n) => n.id).join(" ")}
           nodes={flowNodes}
           edges={flowEdges}
           nodeTypes={nodeTypes}

@@ -1,12 +1,21 @@
 "use client";
 
-import { useActionState, useMemo, useReducer, useState } from "react";
+import { useActionState, useDeferredValue, useMemo, useReducer, useState } from "react";
+import useSWR from "swr";
 import { ChainCanvas } from "./chain-canvas";
 import { chainCanvas } from "./chainCanvas";
 import { checkChain, editorReducer, emptyEditor, nextCandidates, type EditorLink } from "./chainEditorState";
+import { toEditorLink, type MapLike } from "./fromMapView";
 import { idleChainState, type ChainActionState } from "./types";
 
 type Action = (state: ChainActionState, form: FormData) => Promise<ChainActionState>;
+
+async function fetchMaps(url: string): Promise<EditorLink[]> {
+  const response = await fetch(url);
+  if (!response.ok) throw new Error(`search failed (${response.status})`);
+  const body = (await response.json()) as { items: MapLike[] };
+  return body.items.map(toEditorLink);
+}
 
 const button = "rounded border border-line-strong px-1.5 py-0.5 text-xs text-ink-soft hover:bg-tide-50 disabled:opacity-40";
 
@@ -37,6 +46,8 @@ export function ChainEditor({
 }) {
   const [state, dispatch] = useReducer(editorReducer, initial, (links) => ({ ...emptyEditor, links }));
   const [filter, setFilter] = useState("");
+  // Controlled, so the name survives the form reset React does after a refused submission.
+  const [name, setName] = useState("");
   const [showAll, setShowAll] = useState(false);
   const [result, formAction, pending] = useActionState<ChainActionState, FormData>(async (prev, form) => {
     const answer = await action(prev, form);
@@ -44,24 +55,39 @@ export function ChainEditor({
     return answer;
   }, idleChainState);
 
+  // Maps beyond the first page come from the search API as the person types.
+  const query = useDeferredValue(filter.trim());
+  const { data: found, error: searchError } = useSWR(
+    query.length >= 2 ? `/api/search?target=maps&limit=100&q=${encodeURIComponent(query)}` : null,
+    fetchMaps,
+    { keepPreviousData: true },
+  );
+  const allMaps = useMemo(() => {
+    const byId = new Map(pool.map((m) => [m.mapId, m]));
+    for (const m of found ?? []) if (!byId.has(m.mapId)) byId.set(m.mapId, m);
+    return [...byId.values()];
+  }, [pool, found]);
+
   const check = useMemo(() => checkChain(state.links), [state.links]);
   const canvas = useMemo(() => chainCanvas(state.links, check, state.problem?.link ?? null), [state.links, check, state.problem]);
   const offered = useMemo(() => {
-    const base = showAll ? pool.filter((m) => m.status === "certified") : nextCandidates(state.links, pool);
+    const base = showAll ? allMaps.filter((m) => m.status === "certified") : nextCandidates(state.links, allMaps);
     const needle = filter.trim().toLowerCase();
     return needle ? base.filter((m) => `${linkText(m)} ${m.kind} ${m.summary}`.toLowerCase().includes(needle)) : base;
-  }, [pool, state.links, filter, showAll]);
+  }, [allMaps, state.links, filter, showAll]);
 
   const nameError = result.status === "error" && result.field === "name" && state.problem ? result.message : null;
   const generalProblem = state.problem && state.problem.link === null && !nameError ? state.problem.message : null;
 
   return (
-    <div className="grid gap-6 lg:grid-cols-[1fr_22rem]">
-      <section aria-labelledby="chain-heading" className="min-w-0 space-y-4">
-        <h2 id="chain-heading" className="text-sm font-semibold text-ink-soft">
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <div className="lg:col-span-2">
+        <h2 id="chain-heading" className="mb-2 text-sm font-semibold text-ink-soft">
           The chain
         </h2>
         <ChainCanvas nodes={canvas.nodes} edges={canvas.edges} />
+      </div>
+      <section aria-labelledby="chain-heading" className="min-w-0 space-y-4">
 
         <ol className="space-y-2" aria-label="Links of the chain">
           {state.links.map((link, i) => {
@@ -119,6 +145,8 @@ export function ChainEditor({
             <input
               id="chain-name"
               name="name"
+              value={name}
+              onChange={(e) => setName(e.target.value)}
               required
               maxLength={200}
               placeholder="e.g. rule 146 onto rule 0 in two steps"
@@ -174,6 +202,11 @@ export function ChainEditor({
           <input type="checkbox" checked={showAll} onChange={(e) => setShowAll(e.target.checked)} />
           Show all maps, not only those continuing the chain
         </label>
+        {searchError ? (
+          <p className="text-xs text-brick-700" role="alert">
+            The atlas search did not answer; showing the maps loaded with the page.
+          </p>
+        ) : null}
         <ul className="max-h-[32rem] space-y-1 overflow-auto pr-1" aria-label="Maps to add">
           {offered.length === 0 ? <li className="text-sm text-ink-faint">No certified map starts where the chain ends.</li> : null}
           {offered.map((m) => (

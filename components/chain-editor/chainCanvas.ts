@@ -13,8 +13,8 @@ export type CanvasEdge = {
   problem: boolean;
 };
 
-const STEP_X = 230;
-const GAP_DROP = 70;
+const STEP_X = 290;
+const GAP_DROP = 80;
 
 /**
  * Lays a chain out left to right: one node per model where links meet, two nodes with a gap edge
