@@ -1,6 +1,7 @@
 import { env } from "@/env";
 import { createDatabase } from "./client";
 import { setDatabase } from "./queries/connection";
+import { seedAtlas } from "./seed/atlas";
 import { seedPeople } from "./seed/people";
 
 /**
@@ -14,6 +15,8 @@ export async function seed(url = env.DATABASE_URL): Promise<void> {
   try {
     const { workspace, people } = await seedPeople(db);
     console.log(`seeded ${workspace.name} (${people.length} people) into ${url}`);
+    const builder = people.find((p) => p.role === "contributor") ?? people[0];
+    await seedAtlas({ db, workspaceId: workspace.id, userId: builder.id });
   } finally {
     setDatabase(null);
     db.$client.close();
