@@ -16,7 +16,10 @@ import {
   parseProjectionString,
   type Certificate,
 } from "./index";
+import fc from "fast-check";
 import { allOnes, parity } from "@/lib/ca/testSupport";
+import { formatMatrix } from "@/lib/markov";
+import { liftedChain } from "@/lib/markov/testSupport";
 
 const oz = { kind: "markov", labels: ["R", "N", "S"], matrix: [["1/2", "1/4", "1/4"], ["1/2", "0", "1/2"], ["1/4", "1/4", "1/2"]] };
 const cert = (built: { ok: boolean; certificate?: Certificate }) => {
@@ -129,6 +132,38 @@ describe("certificate schema", () => {
     );
     expect(certificateSummary(cert(certifyLumping({ chain: oz, partition: [0, 1, 0] }))).text).toBe(
       "Markov chain (3 states) → Markov chain (2 states): lumping into 2 blocks",
+    );
+  });
+});
+
+describe("no input is mutated (fast-check property)", () => {
+  it("leaves rule tables, projections, chains and partitions as they were", () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 255 }),
+        fc.integer({ min: 1, max: 3 }).chain((N) => fc.tuple(fc.constant(N), fc.array(fc.integer({ min: 0, max: 1 }), { minLength: 2 ** N, maxLength: 2 ** N }))),
+        (rule, [block, projection]) => {
+          const proj = projection.includes(0) && projection.includes(1) ? projection : [1, ...projection.slice(1).map(() => 0)];
+          const table = { k: 2, r: 1, table: Array.from({ length: 8 }, (_, i) => (rule >> i) & 1) };
+          const [projBefore, tableBefore] = [structuredClone(proj), structuredClone(table)];
+          certifyProjection({ table, block, projection: proj });
+          certifyBlocking({ table, block });
+          expect(proj).toEqual(projBefore);
+          expect(table).toEqual(tableBefore);
+        },
+      ),
+      { numRuns: 60 },
+    );
+    fc.assert(
+      fc.property(liftedChain(), fc.integer({ min: 1, max: 3 }), ({ p, partition }, steps) => {
+        const chain = { kind: "markov", matrix: formatMatrix(p) };
+        const [chainBefore, partitionBefore] = [structuredClone(chain), [...partition]];
+        certifyLumping({ chain, partition, steps });
+        certifyDecimation({ chain, steps });
+        expect(chain).toEqual(chainBefore);
+        expect(partition).toEqual(partitionBefore);
+      }),
+      { numRuns: 40 },
     );
   });
 });
