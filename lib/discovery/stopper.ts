@@ -17,12 +17,11 @@ export interface LongRunOptions {
 export function makeStopper(options: LongRunOptions): () => Stopped {
   const clock = options.clock ?? (() => performance.now());
   const deadline = options.deadlineMs === undefined ? Infinity : clock() + options.deadlineMs;
-  let calls = 0;
   let reason: Stopped = null;
   return () => {
     if (reason) return reason;
     if (options.signal?.aborted) reason = "cancelled";
-    else if (deadline !== Infinity && (++calls & 63) === 0 && clock() > deadline) reason = "deadline";
+    else if (deadline !== Infinity && clock() > deadline) reason = "deadline";
     return reason;
   };
 }
