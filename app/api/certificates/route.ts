@@ -10,7 +10,7 @@ export const POST = route(async (request) => {
   authorize(actor, "certificate:submit");
   const who = { workspaceId: actor.workspace.id, userId: actor.user.id };
   const result =
-    "certificate" in body
+    body.certificate !== undefined
       ? await submitCertificate({ ...who, certificate: body.certificate })
       : await submitBuild({ ...who, build: body.build as BuildRequest });
   return Response.json(result, { status: result.status === "created" ? 201 : 200 });

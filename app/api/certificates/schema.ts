@@ -19,14 +19,19 @@ export const BuildRequest = z
   .meta({ id: "BuildRequest" });
 
 export const SubmitBody = z
-  .union([
-    z.object({
-      certificate: z.looseObject({ format: z.string() }).meta({
+  .object({
+    certificate: z
+      .looseObject({ format: z.string() })
+      .optional()
+      .meta({
         description: "A certificate as issued by the core (format squarely-certificate, version 1); see GET /api/certificates/schema.",
       }),
-    }),
-    z.object({ build: BuildRequest }),
-  ])
+    build: BuildRequest.optional(),
+  })
+  .refine((b) => (b.certificate === undefined) !== (b.build === undefined), {
+    message: "Send exactly one of `certificate` or `build`.",
+    path: ["certificate"],
+  })
   .meta({ id: "SubmitCertificateRequest", description: `Either a certificate or a claim to build one from; at most ${MAX_BODY_BYTES} bytes.` });
 
 export const SubmitOut = z
