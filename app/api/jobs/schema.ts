@@ -2,14 +2,27 @@ import { z } from "zod";
 import { JOB_STATUSES } from "@/db/schema";
 import { Cursor, IdParams } from "@/app/api/_lib/schemas";
 import { errorResponses, jsonBody, type RouteConfig } from "@/app/api/_lib/doc";
+import { EcaAtlasParams } from "@/server/jobs/kinds/eca-atlas.compute";
+import { LumpChainParams } from "@/server/jobs/kinds/lump-chain.compute";
+import { SearchProjectionParams } from "@/server/jobs/kinds/search-projection.compute";
+import { VerifyChainParams } from "@/server/jobs/kinds/verify-chain.compute";
 
 const SECURITY: RouteConfig["security"] = [{ bearer: [] }, { session: [] }];
 
-export const CreateJobBody = z
-  .object({
-    kind: z.string().min(1).max(60).meta({ description: "A job kind: eca-atlas, search-projection, lump-chain, verify-chain." }),
-    params: z.record(z.string(), z.unknown()).default({}).meta({ description: "Checked against the kind's own schema." }),
-  })
+/** What the handler parses; the kind's own schema then checks `params` (400 naming `params.<field>`). */
+export const CreateJobBody = z.object({
+  kind: z.string().min(1).max(60),
+  params: z.record(z.string(), z.unknown()).default({}),
+});
+
+/** The same body as documented: one shape per job kind. */
+export const CreateJobDoc = z
+  .discriminatedUnion("kind", [
+    z.object({ kind: z.literal("eca-atlas"), params: EcaAtlasParams }).meta({ description: "All 256 ECAs over a range of block sizes." }),
+    z.object({ kind: z.literal("search-projection"), params: SearchProjectionParams }).meta({ description: "One ECA, further than the atlas goes." }),
+    z.object({ kind: z.literal("lump-chain"), params: LumpChainParams }).meta({ description: "The coarsest lumping of a chain refining an observable." }),
+    z.object({ kind: z.literal("verify-chain"), params: VerifyChainParams }).meta({ description: "A chain of certificates checked as one composite." }),
+  ])
   .meta({ id: "CreateJob" });
 
 export const ListJobsQuery = z.object({
@@ -55,7 +68,7 @@ export const jobRoutes: RouteConfig[] = [
     summary: "Start a job (contributor or above); at most JOBS_PER_USER queued or running per person",
     tags: ["jobs"],
     security: SECURITY,
-    request: { body: jsonBody(CreateJobBody, "The kind and its parameters") },
+    request: { body: jsonBody(CreateJobDoc, "The kind and its parameters") },
     responses: { 201: jsonBody(JobOut, "The queued job"), ...errorResponses("bad_input", "unauthenticated", "forbidden", "too_many_jobs") },
   },
   {
