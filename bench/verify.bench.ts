@@ -106,8 +106,10 @@ export async function main(args: string[]): Promise<void> {
   const proj = parity(BLOCK);
   const windows = 2 ** (3 * BLOCK);
 
-  checkProjection(ecaTable(RULE), 6, parity(6)); // warm-up of the same code on a smaller block
-  const [core, coreMs] = time(() => checkProjection(ecaTable(RULE), BLOCK, proj));
+  const [core, coldMs] = time(() => checkProjection(ecaTable(RULE), BLOCK, proj));
+  // Median of three further runs, after the first (cold) one has compiled the code.
+  const warm = [0, 1, 2].map(() => time(() => checkProjection(ecaTable(RULE), BLOCK, proj))[1]).sort((a, b) => a - b);
+  const coreMs = warm[1];
   if (!core.ok) throw new Error("the benchmark square should commute");
   const cert = certifyProjection({ rule: RULE, block: BLOCK, projection: proj });
   if (!cert.ok) throw new Error("the benchmark certificate should hold");
@@ -120,10 +122,10 @@ export async function main(args: string[]): Promise<void> {
   if (!sample && plainRule !== ecaRuleOf(core.coarse)) throw new Error(`plain evaluation derived rule ${plainRule}, the core ${ecaRuleOf(core.coarse)}`);
 
   console.log(`projection check, rule ${RULE} → ${ecaRuleOf(core.coarse)} by parity at block ${BLOCK}: ${windows.toLocaleString("en")} windows`);
-  console.log(`  core checkProjection (supercell table + exhaustive loop): ${ms(coreMs)}`);
+  console.log(`  core checkProjection (supercell table + exhaustive loop): ${ms(coreMs)} warm median of 3; first run ${ms(coldMs)}`);
   console.log(`  core verifyCertificate (parse, limits, check):            ${ms(verifyMs)} (${verified.status})`);
   console.log(`  plain window-by-window evaluation:                        ${plainMs.toFixed(0)} ms (cpu ${plainCpu.toFixed(0)} ms)${sample ? " (extrapolated from 1/16 of the windows)" : ""}`);
-  console.log(`  speed-up of the core over the plain evaluation: ${(plainMs / coreMs).toFixed(1)}x wall, ${(plainCpu / coreCpu).toFixed(1)}x cpu (target ≥ 10x, core < 1000 ms)`);
+  console.log(`  speed-up of the core over the plain evaluation: ${(plainMs / coreMs).toFixed(1)}x wall, ${(plainCpu / coreCpu).toFixed(1)}x cpu (warm); ${(plainMs / coldMs).toFixed(1)}x wall for the first run (target ≥ 10x, core < 1000 ms)`);
 
   const chain = benchmarkChain(50, 20261202);
   const [power, powerMs] = time(() => matrixPower(chain, 1024));

@@ -49,14 +49,16 @@ export function checkProjection(t: RuleTable, N: number, proj: ArrayLike<number>
   const witness = target ? null : new Float64Array(coarseSize).fill(-1);
   const witnessOf = (w: number) => windowWitness(F, t.k, N, proj, m, w);
 
+  const p = Uint8Array.from(proj);
+  const image = F.table;
   const prefixes = K ** (width - 1);
   for (let prefix = 0; prefix < prefixes; prefix++) {
     let coarsePrefix = 0;
-    for (const block of toDigits(prefix, K, width - 1)) coarsePrefix = coarsePrefix * m + proj[block];
+    for (const block of toDigits(prefix, K, width - 1)) coarsePrefix = coarsePrefix * m + p[block];
     for (let x = 0; x < K; x++) {
       const w = prefix * K + x;
-      const c = coarsePrefix * m + proj[x];
-      const y = proj[F.table[w]];
+      const c = coarsePrefix * m + p[x];
+      const y = p[image[w]];
       if (witness === null) {
         if (g[c] !== y) return { ok: false, counterexample: { kind: "coarse-rule-mismatch", claimed: g[c], ...witnessOf(w) } };
       } else if (witness[c] < 0) {
