@@ -26,9 +26,12 @@ else
 fi
 
 echo "== starting on port $PORT"
-npx next start -p "$PORT" &
+# Its own process group, so that stopping the demo stops the server and anything it started.
+set -m
+node node_modules/next/dist/bin/next start -p "$PORT" &
 server=$!
-trap 'kill "$server" 2>/dev/null; wait "$server" 2>/dev/null' INT TERM EXIT
+set +m
+trap 'kill -- -"$server" 2>/dev/null; wait "$server" 2>/dev/null' INT TERM EXIT
 
 for _ in $(seq 1 120); do
   if node -e 'fetch(process.argv[1]).then((r) => process.exit(r.ok ? 0 : 1), () => process.exit(1))' "http://127.0.0.1:$PORT/sign-in"; then break; fi
