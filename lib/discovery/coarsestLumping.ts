@@ -2,7 +2,7 @@ import { MatrixInputError } from "@/lib/markov";
 import { ZERO, add, type Rational } from "@/lib/rational";
 import { coverageRecord, type Coverage } from "./coverage";
 import { refineToLumping } from "./markov/partitionRefinement";
-import { assertStochastic, isSparseChain, scaleEntries, sparseFromMatrix, type ChainInput, type SparseChain } from "./markov/sparseChain";
+import { isSparseChain, scaleEntries, sparseFromMatrix, type ChainInput, type SparseChain } from "./markov/sparseChain";
 import { makeStopper, type LongRunOptions, type Stopped } from "./stopper";
 
 export interface CoarsestLumping {
@@ -21,8 +21,6 @@ export interface CoarsestLumpingOptions extends LongRunOptions {
   labels: ReadonlyArray<string | number>;
   /** @default 2000 */
   lumpedLimit?: number;
-  /** skip the row-sum check when the caller has already checked the chain @default false */
-  trusted?: boolean;
 }
 
 /**
@@ -33,7 +31,6 @@ export function coarsestLumping(options: CoarsestLumpingOptions): CoarsestLumpin
   const chain: SparseChain = isSparseChain(options.chain) ? options.chain : sparseFromMatrix(options.chain);
   if (options.labels.length !== chain.size)
     throw new MatrixInputError("labels", `${options.labels.length} labels for a ${chain.size}-state chain`);
-  if (!options.trusted) assertStochastic(chain);
   const stop = makeStopper(options);
   const ids = new Map<string | number, number>();
   const initial = Int32Array.from(options.labels, (l) => {
@@ -45,6 +42,7 @@ export function coarsestLumping(options: CoarsestLumpingOptions): CoarsestLumpin
     return id;
   });
   options.onProgress?.(0, `${chain.size} states`);
+  // scaling also checks that the chain is stochastic, exactly
   const refined = refineToLumping(chain, scaleEntries(chain), initial, () => stop() !== null);
   const stopped = stop();
   if (!refined || stopped)

@@ -16,5 +16,5 @@ export type { RuleOption } from "./ca/ruleInput";
 export { coarsestLumping, lumpedChain } from "./coarsestLumping";
 export type { CoarsestLumping, CoarsestLumpingOptions } from "./coarsestLumping";
 export { allLumpings, MAX_ENUMERATED_STATES } from "./allLumpings";
-export { sparseFromMatrix, assertStochastic } from "./markov/sparseChain";
+export { sparseFromMatrix } from "./markov/sparseChain";
 export type { ChainInput, SparseChain } from "./markov/sparseChain";

@@ -3,7 +3,7 @@
  * over a common denominator so that block sums are compared exactly with integer arithmetic.
  */
 import { MatrixInputError, type Matrix } from "@/lib/markov";
-import { ONE, ZERO, add, equals, gcd, type Rational } from "@/lib/rational";
+import { ZERO, add, gcd, type Rational } from "@/lib/rational";
 
 /** A chain with n states; row i's non-zero entries are col/value[rowStart[i] … rowStart[i+1]). */
 export interface SparseChain {
@@ -37,20 +37,6 @@ export function sparseFromMatrix(p: Matrix): SparseChain {
   return { size: n, rowStart, col: Int32Array.from(col), value };
 }
 
-/** Rejects negative entries, out-of-range columns and rows that do not sum to exactly 1. */
-export function assertStochastic(chain: SparseChain): void {
-  const { size, rowStart, col, value } = chain;
-  for (let i = 0; i < size; i++) {
-    let sum = ZERO;
-    for (let e = rowStart[i]; e < rowStart[i + 1]; e++) {
-      if (col[e] < 0 || col[e] >= size) throw new MatrixInputError("matrix", `row ${i + 1} has a column ${col[e] + 1} outside 1..${size}`);
-      if (value[e].num < 0n) throw new MatrixInputError("matrix", `entry (${i + 1}, ${col[e] + 1}) is negative`);
-      sum = add(sum, value[e]);
-    }
-    if (!equals(sum, ONE)) throw new MatrixInputError("matrix", `row ${i + 1} sums to ${sum.num}/${sum.den}, not 1`);
-  }
-}
-
 function lcm(a: bigint, b: bigint): bigint {
   return (a / gcd(a, b)) * b;
 }
@@ -59,12 +45,50 @@ function lcm(a: bigint, b: bigint): bigint {
  * Entries as integers over one common denominator L: numerators as doubles when every partial sum stays below
  * 2^53 (then integer addition in doubles is exact), else as BigInt.
  */
-export type ScaledEntries = { kind: "number"; num: Float64Array } | { kind: "bigint"; num: BigInt64Array | bigint[] };
+export type ScaledEntries = { kind: "number"; num: Float64Array; L: number } | { kind: "bigint"; num: bigint[]; L: bigint };
 
+/**
+ * Scales the entries; rejects negative entries, columns outside the chain and rows that do not sum to exactly 1
+ * (a row sums to 1 exactly when its numerators sum to L; entries are non-negative, so partial sums only grow
+ * and a partial sum above L already proves the row wrong).
+ */
 export function scaleEntries(chain: SparseChain): ScaledEntries {
+  const { size, rowStart, col, value } = chain;
   let L = 1n;
-  for (const v of chain.value) if (v.den !== 1n && L % v.den !== 0n) L = lcm(L, v.den);
-  // every row sums to 1, so every partial sum of numerators is at most L
-  if (L <= BigInt(Number.MAX_SAFE_INTEGER)) return { kind: "number", num: Float64Array.from(chain.value, (v) => Number((v.num * L) / v.den)) };
-  return { kind: "bigint", num: chain.value.map((v) => (v.num * L) / v.den) };
+  for (let e = 0; e < value.length; e++) {
+    const v = value[e];
+    if (v.num < 0n) throw new MatrixInputError("matrix", `entry (${rowOf(chain, e) + 1}, ${col[e] + 1}) is negative`);
+    if (col[e] < 0 || col[e] >= size) throw new MatrixInputError("matrix", `row ${rowOf(chain, e) + 1} has a column ${col[e] + 1} outside 1..${size}`);
+    if (v.den !== 1n && L % v.den !== 0n) L = lcm(L, v.den);
+  }
+  const badRow = (i: number, sum: Rational) => new MatrixInputError("matrix", `row ${i + 1} sums to ${sum.num}${sum.den === 1n ? "" : `/${sum.den}`}, not 1`);
+  if (L <= BigInt(Number.MAX_SAFE_INTEGER)) {
+    const Ln = Number(L);
+    const num = Float64Array.from(value, (v) => Number((v.num * L) / v.den));
+    for (let i = 0; i < size; i++) {
+      let sum = 0;
+      for (let e = rowStart[i]; e < rowStart[i + 1] && sum <= Ln; e++) sum += num[e];
+      if (sum !== Ln) throw badRow(i, exactRowSum(chain, i));
+    }
+    return { kind: "number", num, L: Ln };
+  }
+  const num = value.map((v) => (v.num * L) / v.den);
+  for (let i = 0; i < size; i++) {
+    let sum = 0n;
+    for (let e = rowStart[i]; e < rowStart[i + 1]; e++) sum += num[e];
+    if (sum !== L) throw badRow(i, exactRowSum(chain, i));
+  }
+  return { kind: "bigint", num, L };
+}
+
+function rowOf(chain: SparseChain, e: number): number {
+  let i = 0;
+  while (chain.rowStart[i + 1] <= e) i++;
+  return i;
+}
+
+function exactRowSum(chain: SparseChain, i: number): Rational {
+  let sum = ZERO;
+  for (let e = chain.rowStart[i]; e < chain.rowStart[i + 1]; e++) sum = add(sum, chain.value[e]);
+  return sum;
 }
