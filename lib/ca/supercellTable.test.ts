@@ -1,7 +1,8 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { ecaTable, evolveCells, fromDigits, iterateTable, supercellTable, supercellTablePlain, toDigits, type RuleTable } from "./index";
+import { ecaTable, evolveCells, fromDigits, iterateTable, supercellShape, supercellTable, supercellTablePlain, toDigits, type RuleTable } from "./index";
 import { centreAfter } from "./testSupport";
+import { supercellTableStaged } from "./supercellTableStaged";
 
 const sameTable = (a: RuleTable, b: RuleTable) => a.k === b.k && a.r === b.r && a.table.every((v, i) => v === b.table[i]);
 
@@ -56,6 +57,27 @@ describe("supercellTable (light-cone composition) against the plain definition",
       ),
       { numRuns: 12 },
     );
+  });
+
+  it("agrees with the plain table for 3- and 4-symbol rules large enough for the base-k segment tables", () => {
+    fc.assert(
+      fc.property(fc.uint8Array({ min: 0, max: 2, minLength: 27, maxLength: 27 }), fc.constantFrom(3, 4), (table, N) =>
+        sameTable(supercellTable({ k: 3, r: 1, table }, N), supercellTablePlain({ k: 3, r: 1, table }, N)),
+      ),
+      { numRuns: 4 },
+    );
+    fc.assert(
+      fc.property(fc.uint8Array({ min: 0, max: 3, minLength: 64, maxLength: 64 }), (table) =>
+        sameTable(supercellTable({ k: 4, r: 1, table }, 3), supercellTablePlain({ k: 4, r: 1, table }, 3)),
+      ),
+      { numRuns: 3 },
+    );
+  });
+
+  it("builds binary tables the same way by base-k arithmetic as by bit shifts", () => {
+    const t = ecaTable(54);
+    const { K, R, W, size } = supercellShape(t, 6, 7);
+    expect(sameTable(supercellTableStaged(t, 6, 7, K, R, W, size)!, supercellTable(t, 6, 7))).toBe(true);
   });
 
   it("encodes the block with the leftmost cell most significant: rule 204 (identity) maps each window to its centre", () => {

@@ -1,4 +1,5 @@
 import { supercellShape, supercellTablePlain } from "./supercellTablePlain";
+import { supercellTableStaged } from "./supercellTableStaged";
 import type { RuleTable } from "./ruleTable";
 
 const SEGMENT = 16;
@@ -12,7 +13,8 @@ const LOW = 8;
  */
 export function supercellTable(t: RuleTable, N: number, T: number = N): RuleTable {
   const { K, R, W, size } = supercellShape(t, N, T);
-  if (t.k !== 2 || W <= SEGMENT || W > 30 || 2 * t.r >= SEGMENT / 2) return supercellTablePlain(t, N, T);
+  if (t.k !== 2 || W <= SEGMENT || W > 30 || 2 * t.r >= SEGMENT / 2)
+    return (W > 30 || t.k !== 2 ? supercellTableStaged(t, N, T, K, R, W, size) : null) ?? supercellTablePlain(t, N, T);
   const stages = planStages(t, W, T);
   const table = new Uint8Array(size);
   const finalLength = W - 2 * t.r * T;
