@@ -59,7 +59,9 @@ async function resolveToken(header: string): Promise<Actor> {
   }
   const found = await findActiveApiToken({ tokenHash: hashTokenSecret(match[1]) });
   if (!found) throw new AppError("unauthenticated", "This API token is unknown or revoked.", { field: "authorization" });
-  await touchApiToken({ tokenId: found.token.id }).catch(() => undefined);
+  // A write per read would serialise every API read behind the write lock: note use once a minute.
+  const lastUsed = found.token.lastUsedAt?.getTime() ?? 0;
+  if (Date.now() - lastUsed > 60_000) await touchApiToken({ tokenId: found.token.id }).catch(() => undefined);
   const role = roleRank(found.token.role) <= roleRank(found.memberRole) ? found.token.role : found.memberRole;
   return { user: found.user, workspace: found.workspace, role, via: "token", tokenId: found.token.id };
 }
