@@ -154,8 +154,9 @@ export async function main(args: string[]): Promise<void> {
     const pick = random(7);
     const randomRead = () =>
       `/api/models/${modelIds[Math.floor(pick() * MODELS)]}/maps?direction=${pick() < 0.5 ? "from" : "to"}&limit=50`;
-    await hammer(port, 1, randomRead, secret); // warm-up: JIT, page cache, worker-free path
     const base = await hammer(port, seconds, () => "/baseline");
+    await hammer(port, 2, randomRead, secret); // warm-up: JIT and page cache
+    await new Promise((r) => setTimeout(r, 500)); // let the warm-up's last requests drain
     const read = await hammer(port, seconds, randomRead, secret);
     console.log(
       `note: handler served by a plain node http server in a child process (not next start); autocannon ${CONNECTIONS} connections, ${seconds} s each`,
