@@ -76,8 +76,8 @@ describe("supercellTable (light-cone composition) against the plain definition",
 
   it("builds binary tables the same way by base-k arithmetic as by bit shifts", () => {
     const t = ecaTable(54);
-    const { K, R, W, size } = supercellShape(t, 6, 7);
-    expect(sameTable(supercellTableStaged(t, 6, 7, K, R, W, size)!, supercellTable(t, 6, 7))).toBe(true);
+    const { K, R, W, size } = supercellShape(t, 6, 5);
+    expect(sameTable(supercellTableStaged(t, 6, 5, K, R, W, size)!, supercellTable(t, 6, 5))).toBe(true);
   });
 
   it("encodes the block with the leftmost cell most significant: rule 204 (identity) maps each window to its centre", () => {
