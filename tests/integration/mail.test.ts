@@ -11,7 +11,7 @@ let catcher: MailCatcher;
 beforeAll(async () => {
   dir = mkdtempSync(join(tmpdir(), "squarely-mail-"));
   catcher = await startMailCatcher({ port: 0, dir });
-});
+}, 60_000);
 afterAll(async () => {
   await catcher.close();
   rmSync(dir, { recursive: true, force: true });

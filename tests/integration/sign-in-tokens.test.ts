@@ -8,7 +8,7 @@ let t: TestDatabase;
 beforeAll(async () => {
   t = await createTestDatabase();
   setDatabase(t.db);
-});
+}, 60_000);
 afterAll(() => {
   setDatabase(null);
   t.cleanup();
