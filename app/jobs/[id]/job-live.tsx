@@ -19,7 +19,8 @@ const active = (job: JobView | undefined) => job?.status === "queued" || job?.st
 export function JobLive({ initial, canCancel }: { initial: JobView; canCancel: boolean }) {
   const { data, mutate } = useSWR<JobView>(`/api/jobs/${initial.id}`, fetchJob, {
     fallbackData: initial,
-    refreshInterval: (latest) => (active(latest) ? 1000 : 0),
+    // Before the first answer swr passes undefined (fallback data is not in its cache): poll then too.
+    refreshInterval: (latest) => (active(latest ?? initial) ? 1000 : 0),
   });
   const [cancelError, setCancelError] = useState<string | null>(null);
   const job = data ?? initial;
