@@ -75,6 +75,9 @@ function buildProblem(cell: Supercell): Problem {
   return { n, out, A, B, C, D, occStart, occ, stamp: new Uint32Array(W), generation: { value: 0 } };
 }
 
+/** Up to this many constrained states, the residual problem is counted by trying every assignment. */
+const BRUTE_FORCE_STATES = 12;
+
 const CONFLICT = -1;
 const TAUTOLOGY = 1;
 const OPEN = 0;
@@ -224,6 +227,14 @@ class FixedTarget {
       if (list) list.push(v);
       else members.set(root, [v]);
     }
+    let constrained = 0;
+    for (const list of members.values()) constrained += list.length;
+    if (constrained <= BRUTE_FORCE_STATES) {
+      const c = this.bruteForce(solution, [...members.values()].flat(), open);
+      if (c === 0n) return 0n;
+      example.p = solution;
+      return c << BigInt(free);
+    }
     const groups = new Map<number, number[]>();
     for (let i = 0; i < open.length; i++) {
       const w = open[i];
@@ -256,6 +267,43 @@ class FixedTarget {
     }
     example.p = solution;
     return result;
+  }
+
+  /**
+   * Number of assignments of `vars` under which every window of `open` holds, by trying them all; `solution`
+   * (with every other state assigned) receives the first. Windows that fail move to the front, so most
+   * assignments are refuted by the first window tried.
+   */
+  private bruteForce(solution: Int8Array, vars: number[], open: number[]): bigint {
+    const order = open.slice();
+    let count = 0;
+    let first = -1;
+    const p = solution;
+    // states of other components may sit in these windows without affecting them: give them any value
+    for (const w of open) {
+      const k = this.unassigned(w, p);
+      for (let i = 0; i < k; i++) if (!vars.includes(this.vars[i])) p[this.vars[i]] = 0;
+    }
+    for (let mask = 0; mask < 1 << vars.length; mask++) {
+      for (let i = 0; i < vars.length; i++) p[vars[i]] = (mask >> i) & 1;
+      let ok = true;
+      for (let k = 0; k < order.length; k++) {
+        if (this.holds(order[k], p)) continue;
+        if (k > 0) {
+          const w = order[k];
+          order[k] = order[0];
+          order[0] = w;
+        }
+        ok = false;
+        break;
+      }
+      if (ok) {
+        count++;
+        if (first < 0) first = mask;
+      }
+    }
+    for (let i = 0; i < vars.length; i++) p[vars[i]] = first < 0 ? -1 : (first >> i) & 1;
+    return BigInt(count);
   }
 
   /** Windows that contain an unassigned state of `scope`, each once. */
