@@ -32,6 +32,7 @@ export function requireHolds(outcome: VerifyOutcome, field = "certificate"): Ver
     case "model":
     case "chain":
     case "broken-chain":
+    case "derived":
       return fail(new AppError("internal", "The verification worker answered a different question."));
   }
 }

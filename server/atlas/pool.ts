@@ -24,7 +24,7 @@ function pool(): Tinypool {
     filename: VERIFY_WORKER_FILE,
     minThreads: 0,
     maxThreads: 2,
-    idleTimeout: 30_000,
+    idleTimeout: 300_000, // a thread that has loaded the checker stays warm for the next submission
     resourceLimits: { maxOldGenerationSizeMb: VERIFY_LIMITS.memoryMb },
   });
   return holder.squarelyVerifyPool;

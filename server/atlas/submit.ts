@@ -7,7 +7,7 @@ import { certificateAddress } from "@/lib/certificate";
 import { AppError } from "@/server/errors";
 import { requireHolds } from "./outcome";
 import { runVerification } from "./pool";
-import type { BuildRequest, Verified } from "./verify-task";
+import type { BuildRequest, Derivation, Verified } from "./verify-task";
 
 export type SubmitResult = { status: "created" | "existing"; mapId: string; address: string };
 
@@ -75,7 +75,19 @@ async function existingFor(workspaceId: string, certificate: unknown): Promise<S
   return mapId ? { status: "existing", mapId, address } : null;
 }
 
-async function store({ workspaceId, userId, verified }: { workspaceId: string; userId: string; verified: Verified }) {
+async function store({
+  workspaceId,
+  userId,
+  verified,
+  derivedFromMapId = null,
+  derivation = null,
+}: {
+  workspaceId: string;
+  userId: string;
+  verified: Verified;
+  derivedFromMapId?: string | null;
+  derivation?: Derivation | null;
+}) {
   return createCertifiedEdge({
     workspaceId,
     userId,
@@ -91,6 +103,8 @@ async function store({ workspaceId, userId, verified }: { workspaceId: string; u
     target: verified.target,
     map: { kind: verified.kind, block: verified.block, steps: verified.steps, summary: verified.text },
     linkBase: env.APP_URL,
+    derivedFromMapId,
+    derivation,
   });
 }
 
@@ -150,4 +164,33 @@ export async function submitChain({
     verification,
   });
   return { ...stored, verification };
+}
+
+/**
+ * Adds the symmetry images of a certified CA map (reflection, complement, both), each verified by
+ * the checker and stored as derived from the original. Images that are the original are skipped.
+ */
+export async function submitSymmetricImages({
+  workspaceId,
+  userId,
+  mapId,
+}: {
+  workspaceId: string;
+  userId: string;
+  mapId: string;
+}): Promise<{ created: SubmitResult[]; skipped: { derivation: Derivation; reason: string }[] }> {
+  const map = await getMap({ workspaceId, mapId });
+  if (!map) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: "mapId" });
+  const cert = await getCertificate({ address: map.certificateAddress });
+  if (!cert) throw new AppError("internal", `The certificate of map ${mapId} is missing.`);
+  const outcome = await runVerification({ op: "symmetry", certificate: JSON.parse(cert.body) });
+  if (outcome.status !== "derived") {
+    requireHolds(outcome, "certificate");
+    throw new AppError("internal", "The verification worker answered a different question.");
+  }
+  const created: SubmitResult[] = [];
+  for (const v of outcome.variants) {
+    created.push(await store({ workspaceId, userId, verified: v.verified, derivedFromMapId: mapId, derivation: v.derivation }));
+  }
+  return { created, skipped: outcome.skipped };
 }

@@ -17,7 +17,7 @@ import {
 } from "@/lib/certificate";
 import { composeChain } from "@/lib/chain";
 import { canonicalModel, ModelInputError } from "@/lib/models";
-import { symmetryClass } from "@/lib/symmetry";
+import { complementCertificate, reflectCertificate, symmetryClass } from "@/lib/symmetry";
 import { CHECKER_VERSION, verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
 import { modelFields } from "./model-fields";
 
@@ -33,7 +33,10 @@ export type VerifyTask =
   | { op: "verify"; certificate: unknown; limits: Limits }
   | { op: "build"; build: BuildRequest; limits: Limits }
   | { op: "model"; model: unknown }
-  | { op: "chain"; certificates: unknown[]; limits: Limits };
+  | { op: "chain"; certificates: unknown[]; limits: Limits }
+  | { op: "symmetry"; certificate: unknown; limits: Limits };
+
+export type Derivation = "reflect" | "complement" | "reflect-complement";
 
 /** A verified certificate, ready to be written: plain data (it crosses a thread boundary). */
 export type Verified = {
@@ -55,7 +58,8 @@ export type VerifyOutcome =
   | Exclude<VerifyResult, { status: "holds" }>
   | { status: "model"; fields: ModelFields }
   | { status: "chain"; composite: Verified; verification: "links" | "links+composite" }
-  | { status: "broken-chain"; link: number; reason: string };
+  | { status: "broken-chain"; link: number; reason: string }
+  | { status: "derived"; variants: { derivation: Derivation; verified: Verified }[]; skipped: { derivation: Derivation; reason: string }[] };
 
 export function runVerifyTask(task: VerifyTask): VerifyOutcome {
   switch (task.op) {
@@ -63,6 +67,8 @@ export function runVerifyTask(task: VerifyTask): VerifyOutcome {
       return described(verifyCertificate(task.certificate, task.limits));
     case "build":
       return build(task.build, task.limits);
+    case "symmetry":
+      return symmetric(task.certificate, task.limits);
     case "chain": {
       const result = composeChain(task.certificates as Certificate[], task.limits);
       if (!result.ok) return { status: "broken-chain", link: result.link, reason: result.reason };
@@ -126,4 +132,43 @@ function verifiedFields(certificate: Certificate, checkerVersion: string): Verif
     source: modelFields(summary.source, symmetryClass),
     target: modelFields(summary.target, symmetryClass),
   };
+}
+
+const SYMMETRIES: Record<Derivation, (c: Certificate) => Certificate> = {
+  reflect: reflectCertificate,
+  complement: complementCertificate,
+  "reflect-complement": (c) => reflectCertificate(complementCertificate(c)),
+};
+
+/**
+ * The reflected and complemented images of a verified CA certificate (DOMAIN.md §4), each checked by
+ * the same checker: a derived edge is never assumed. Images equal to the original are skipped.
+ */
+function symmetric(input: unknown, limits: Limits): VerifyOutcome {
+  const original = verifyCertificate(input, limits);
+  if (original.status !== "holds") return original;
+  const variants: { derivation: Derivation; verified: Verified }[] = [];
+  const skipped: { derivation: Derivation; reason: string }[] = [];
+  const seen = new Set([original.address]);
+  for (const derivation of Object.keys(SYMMETRIES) as Derivation[]) {
+    let image: Certificate;
+    try {
+      image = SYMMETRIES[derivation](original.certificate);
+    } catch (e) {
+      skipped.push({ derivation, reason: e instanceof Error ? e.message : String(e) });
+      continue;
+    }
+    const checked = verifyCertificate(image, limits);
+    if (checked.status !== "holds") {
+      skipped.push({ derivation, reason: `the image does not verify (${checked.status})` });
+      continue;
+    }
+    if (seen.has(checked.address)) {
+      skipped.push({ derivation, reason: "the image is a certificate already in this set" });
+      continue;
+    }
+    seen.add(checked.address);
+    variants.push({ derivation, verified: verifiedFields(checked.certificate, checked.checkerVersion) });
+  }
+  return { status: "derived", variants, skipped };
 }

@@ -4,7 +4,7 @@ import { getMap, setDatabase } from "@/db/queries/atlas";
 import { auditEvents, certificates, maps, models, notificationOutbox } from "@/db/schema";
 import { certifyDecimation, certifyLumping, sealCertificate } from "@/lib/certificate";
 import { closeVerificationPool, runVerification } from "@/server/atlas/pool";
-import { ensureModel, submitBuild, submitCertificate, submitChain } from "@/server/atlas/submit";
+import { ensureModel, submitBuild, submitCertificate, submitChain, submitSymmetricImages } from "@/server/atlas/submit";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { seedAtlasPeople } from "./atlas-fixtures";
 
@@ -136,5 +136,20 @@ describe("server-side verification in a worker thread", () => {
       code: "not_found",
       field: "mapIds.1",
     });
+  });
+
+  it("symmetry images are verified and stored as derived: the left shift (rule 240) reflects to the right shift (rule 170)", async () => {
+    // Rules 240 and 170 copy the left and right neighbour (Wolfram, Rev. Mod. Phys. 55, 601, 1983; DOMAIN.md §1).
+    // Two steps of a one-cell shift move a block of 2 by one block, so "first cell of the block" projects
+    // rule 240 onto itself; its mirror image must project rule 170 onto itself.
+    const made = await submitBuild({ workspaceId: ws, userId, build: { kind: "projection", rule: 240, block: 2, projection: "0011" } });
+    const result = await submitSymmetricImages({ workspaceId: ws, userId, mapId: made.mapId });
+    expect(result.created).toHaveLength(1);
+    const image = (await getMap({ workspaceId: ws, mapId: result.created[0].mapId }))!;
+    expect(image).toMatchObject({ derivation: "reflect", derivedFromMapId: made.mapId, source: { rule: 170 }, target: { rule: 170 } });
+    // 240 is its own complement, so the complemented images repeat certificates already in the set.
+    expect(result.skipped.map((s) => s.derivation).sort()).toEqual(["complement", "reflect-complement"]);
+    const again = await submitSymmetricImages({ workspaceId: ws, userId, mapId: made.mapId });
+    expect(again.created.map((c) => c.status)).toEqual(["existing"]);
   });
 });
