@@ -49,7 +49,7 @@ async function recordsOf(rule: number) {
 }
 
 describe("the eca-atlas job", () => {
-  it("submits every coarse-graining found at block 2 and records one search per rule and kind", async () => {
+  it("submits every coarse-graining found at block 2 and records one search per rule and kind", { timeout: 300_000 }, async () => {
     const done = await run("eca-atlas", { minBlock: 2, maxBlock: 2, search: "both" });
     expect(done.error).toBeNull();
     expect(done.status).toBe("succeeded");
