@@ -7,6 +7,7 @@ import * as chains from "@/app/api/chains/route";
 import { setSessionReader } from "@/app/api/_lib/actor";
 import * as retract from "@/app/api/maps/[id]/retract/route";
 import * as mapById from "@/app/api/maps/[id]/route";
+import * as symmetry from "@/app/api/maps/[id]/symmetry/route";
 import * as modelMaps from "@/app/api/models/[id]/maps/route";
 import * as modelById from "@/app/api/models/[id]/route";
 import * as models from "@/app/api/models/route";
@@ -91,6 +92,12 @@ const endpoints: Endpoint[] = [
       body: { reason: `checked by the ${role}` },
       params: { id: fixture.retractable[role] },
     }),
+  },
+  {
+    name: "POST /api/maps/{id}/symmetry",
+    action: "certificate:submit",
+    handler: symmetry.POST,
+    request: () => ({ path: `/api/maps/${fixture.mapId}/symmetry`, method: "POST", params: { id: fixture.mapId } }),
   },
   { name: "GET /api/chains", action: "atlas:read", handler: chains.GET, request: () => ({ path: "/api/chains" }) },
   {

@@ -9,6 +9,7 @@ import { routes as chains } from "../chains/schema";
 import { jobRoutes } from "../jobs/schema";
 import { routes as retract } from "../maps/[id]/retract/schema";
 import { routes as mapById } from "../maps/[id]/schema";
+import { routes as symmetry } from "../maps/[id]/symmetry/schema";
 import { routes as modelMaps } from "../models/[id]/maps/schema";
 import { routes as modelById } from "../models/[id]/schema";
 import { routes as models } from "../models/schema";
@@ -26,6 +27,7 @@ const ALL_ROUTES: RouteConfig[] = [
   ...certificateByAddress,
   ...mapById,
   ...retract,
+  ...symmetry,
   ...chains,
   ...paths,
   ...ask,
