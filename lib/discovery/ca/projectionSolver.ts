@@ -82,11 +82,15 @@ const CONFLICT = -1;
 const TAUTOLOGY = 1;
 const OPEN = 0;
 
+/** Thrown inside a count when the search is told to stop; caught by solveZeroRootedProjections. */
+class StopSearch extends Error {}
+
 class FixedTarget {
   readonly vars = new Int32Array(4);
   constructor(
     readonly pb: Problem,
     readonly g: number,
+    readonly shouldStop: () => boolean = () => false,
   ) {}
 
   holds(w: number, p: Int8Array): boolean {
@@ -176,6 +180,7 @@ class FixedTarget {
    * `example` receives p completed on `scope` when the count is positive.
    */
   count(p: Int8Array, windows: Int32Array | null, scope: Int32Array, example: { p: Int8Array | null }): bigint {
+    if (this.shouldStop()) throw new StopSearch();
     const { n } = this.pb;
     const open: number[] = [];
     const candidates = windows ?? this.windowsOfUnassigned(p, scope);
@@ -285,6 +290,7 @@ class FixedTarget {
       for (let i = 0; i < k; i++) if (!vars.includes(this.vars[i])) p[this.vars[i]] = 0;
     }
     for (let mask = 0; mask < 1 << vars.length; mask++) {
+      if ((mask & 1023) === 1023 && this.shouldStop()) throw new StopSearch();
       for (let i = 0; i < vars.length; i++) p[vars[i]] = (mask >> i) & 1;
       let ok = true;
       for (let k = 0; k < order.length; k++) {
@@ -456,7 +462,7 @@ export function solveZeroRootedProjections(cell: Supercell, hooks: SolverHooks =
     if (unknownBit < 0) {
       let gNum = 0;
       for (let i = 0; i < 8; i++) gNum |= s.g[i] << i;
-      const solver = new FixedTarget(pb, gNum);
+      const solver = new FixedTarget(pb, gNum, () => hooks.shouldStop?.() ?? false);
       const scope = Int32Array.from({ length: n }, (_, i) => i);
       const example = { p: null as Int8Array | null };
       const c = solver.count(s.p, null, scope, example);
@@ -483,6 +489,11 @@ export function solveZeroRootedProjections(cell: Supercell, hooks: SolverHooks =
       if (propagateJoint(pb, child, [v], [])) visit(child);
     }
   };
-  visit(root);
+  try {
+    visit(root);
+  } catch (e) {
+    if (e instanceof StopSearch) return null;
+    throw e;
+  }
   return stopped ? null : found;
 }
