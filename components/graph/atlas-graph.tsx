@@ -7,6 +7,7 @@ import ReactFlow, {
   Controls,
   Handle,
   MarkerType,
+  MiniMap,
   Position,
   type Edge,
   type Node,
@@ -42,7 +43,18 @@ const nodeTypes = { atlas: AtlasNode };
  * Draws a laid-out atlas (see `layoutGraph`); the layout is computed on the server so the client
  * only renders. Clicking a node or an edge opens its page.
  */
-export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; height?: number }) {
+export function AtlasGraph({
+  layout,
+  height = 560,
+  readableZoom = 0.1,
+  minimap = false,
+}: {
+  layout: GraphLayout;
+  height?: number;
+  /** The least zoom the first view may use; a wide atlas then opens legible at its centre. */
+  readableZoom?: number;
+  minimap?: boolean;
+}) {
   const router = useRouter();
   const nodes = useMemo<Node<NodeData>[]>(
     () =>
@@ -80,13 +92,14 @@ export function AtlasGraph({ layout, height = 560 }: { layout: GraphLayout; heig
         nodesDraggable={false}
         nodesConnectable={false}
         fitView
-        fitViewOptions={{ padding: 0.08 }}
+        fitViewOptions={{ padding: 0.08, minZoom: readableZoom }}
         minZoom={0.1}
         onNodeClick={(_, node) => node.data.href && router.push(node.data.href)}
         onEdgeClick={(_, edge) => edge.data?.href && router.push(edge.data.href)}
       >
         <Background gap={24} color="#dcd8cc" />
         <Controls showInteractive={false} />
+        {minimap ? <MiniMap pannable zoomable nodeColor="#7fb9b0" maskColor="rgba(246,244,238,0.7)" /> : null}
       </ReactFlow>
     </div>
   );

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { layoutGraph } from "./layout";
+import { connectedComponents, layoutGraph, layoutPacked, neighbourhood } from "./layout";
 import type { GraphEdge, GraphNode } from "./types";
 
 const node = (id: string): GraphNode => ({ id, label: id });
@@ -64,5 +64,61 @@ describe("layoutGraph", () => {
     const copy = structuredClone({ nodes, edges });
     layoutGraph(nodes, edges);
     expect({ nodes, edges }).toEqual(copy);
+  });
+});
+
+describe("connectedComponents", () => {
+  it("splits a graph into its weakly connected parts, largest first, each node once", () => {
+    const nodes = ["a", "b", "c", "d", "e", "a"].map(node);
+    const parts = connectedComponents(nodes, [edge("a", "b"), edge("c", "b"), edge("d", "d"), edge("e", "ghost")]);
+    expect(parts.map((p) => p.nodes.map((n) => n.id).sort())).toEqual([["a", "b", "c"], ["d"], ["e"]]);
+    expect(parts[0].edges).toHaveLength(2);
+    expect(parts[2].edges).toEqual([]);
+  });
+});
+
+describe("layoutPacked", () => {
+  const many = Array.from({ length: 30 }, (_, i) => [node(`s${i}`), node(`t${i}`)]).flat();
+  const pairs = Array.from({ length: 30 }, (_, i) => edge(`s${i}`, `t${i}`));
+
+  it("packs many small families into rows no wider than asked, without overlaps", () => {
+    const layout = layoutPacked(many, pairs, { maxWidth: 800 });
+    expect(layout.nodes).toHaveLength(60);
+    expect(layout.edges).toHaveLength(30);
+    expect(layout.width).toBeLessThanOrEqual(800);
+    for (const n of layout.nodes) expect(n.x + n.width).toBeLessThanOrEqual(layout.width + 1e-9);
+    for (let i = 0; i < layout.nodes.length; i++)
+      for (let j = i + 1; j < layout.nodes.length; j++) expect(overlaps(layout.nodes[i], layout.nodes[j])).toBe(false);
+  });
+
+  it("keeps each family's sources above its targets", () => {
+    const layout = layoutPacked(many, pairs, { maxWidth: 800 });
+    const at = new Map(layout.nodes.map((n) => [n.id, n]));
+    for (let i = 0; i < 30; i++) expect(at.get(`s${i}`)!.y).toBeLessThan(at.get(`t${i}`)!.y);
+  });
+
+  it("is much less wide than one layered layout of the same graph", () => {
+    expect(layoutPacked(many, pairs, { maxWidth: 1100 }).width).toBeLessThan(layoutGraph(many, pairs).width / 3);
+  });
+});
+
+describe("neighbourhood", () => {
+  // 146 → 128 → 0 ← 90 ← 60, and 30 → 30 off to the side.
+  const nodes = ["146", "128", "0", "90", "60", "30"].map(node);
+  const edges = [edge("146", "128"), edge("128", "0"), edge("90", "0"), edge("60", "90"), edge("30", "30")];
+
+  it("keeps what a class coarse-grains onto and what coarse-grains onto it, not its siblings", () => {
+    const part = neighbourhood(nodes, edges, "128");
+    expect(part.nodes.map((n) => n.id).sort()).toEqual(["0", "128", "146"]);
+    expect(part.edges.map((e) => e.id).sort()).toEqual(["128->0", "146->128"]);
+  });
+
+  it("gives every ancestor of a sink", () => {
+    expect(neighbourhood(nodes, edges, "0").nodes.map((n) => n.id).sort()).toEqual(["0", "128", "146", "60", "90"]);
+  });
+
+  it("gives nothing for an unknown node, and the node alone when it has no edges", () => {
+    expect(neighbourhood(nodes, edges, "7")).toEqual({ nodes: [], edges: [] });
+    expect(neighbourhood(nodes, edges, "30")).toEqual({ nodes: [node("30")], edges: [edge("30", "30")] });
   });
 });

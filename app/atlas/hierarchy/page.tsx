@@ -5,7 +5,7 @@ import { PageHeader } from "@/components/atlas/page-header";
 import { Skeleton } from "@/components/atlas/skeleton";
 import { AtlasGraph } from "@/components/graph/atlas-graph";
 import { groupBySymmetryClass } from "@/components/graph/groupBySymmetryClass";
-import { layoutGraph } from "@/components/graph/layout";
+import { layoutPacked, neighbourhood } from "@/components/graph/layout";
 import { Panel } from "@/components/ui/panel";
 import { getClassHierarchy } from "@/db/queries/atlas";
 import { getWorkspaceContext } from "@/server/context";
@@ -14,12 +14,20 @@ export const metadata: Metadata = { title: "ECA hierarchy" };
 
 type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
 
-function blockOf(value: string | string[] | undefined): number | null {
+function numberOf(value: string | string[] | undefined, digits: number): number | null {
   const text = Array.isArray(value) ? value[0] : value;
-  return text && /^\d{1,2}$/.test(text) ? Number(text) : null;
+  return text && new RegExp(`^\\d{1,${digits}}$`).test(text) ? Number(text) : null;
 }
 
-async function Hierarchy({ workspaceId, block }: { workspaceId: string; block: number | null }) {
+function hierarchyHref(block: number | null, focus: number | null): string {
+  const query = new URLSearchParams();
+  if (block !== null) query.set("block", String(block));
+  if (focus !== null) query.set("focus", String(focus));
+  const text = query.toString();
+  return text ? `/atlas/hierarchy?${text}` : "/atlas/hierarchy";
+}
+
+async function Hierarchy({ workspaceId, block, focus }: { workspaceId: string; block: number | null; focus: number | null }) {
   const hierarchy = await getClassHierarchy({ workspaceId, kind: "eca" });
   const members = hierarchy.groups.flatMap((g) =>
     g.models.flatMap((m) => (m.rule !== null ? [{ id: m.id, rule: m.rule, symmetryClass: m.symmetryClass ?? m.rule }] : [])),
@@ -27,11 +35,14 @@ async function Hierarchy({ workspaceId, block }: { workspaceId: string; block: n
   const edges = block === null ? hierarchy.edges : hierarchy.edges.filter((e) => e.block === block);
   const grouped = groupBySymmetryClass(members, edges);
   const connected = new Set([...grouped.edges.flatMap((e) => [e.source, e.target]), ...grouped.nodes.filter((n) => n.loop).map((n) => n.id)]);
-  const drawn = grouped.nodes.filter((n) => connected.has(n.id));
+  const all = grouped.nodes.filter((n) => connected.has(n.id));
+  const focused = focus !== null ? neighbourhood(grouped.nodes, grouped.edges, `class-${focus}`) : null;
+  const drawn = focused ? focused.nodes : all;
+  const drawnEdges = focused ? focused.edges : grouped.edges;
   const isolated = grouped.groups.filter((g) => !connected.has(`class-${g.symmetryClass}`));
-  const layout = layoutGraph(drawn, grouped.edges, { nodeWidth: 160, nodeHeight: 58, nodeSep: 18 });
-  // fitView scales the drawing to the width of the page (about 1100 px); size the box to match.
-  const height = Math.min(720, Math.max(320, Math.round(layout.height * Math.min(1, 1100 / Math.max(layout.width, 1))) + 80));
+  // Each family of classes is laid out on its own and the families packed in rows as wide as the page.
+  const layout = layoutPacked(drawn, drawnEdges, { nodeWidth: 160, nodeHeight: 58, nodeSep: 18, maxWidth: 1060 });
+  const height = Math.min(1600, Math.max(320, Math.round(layout.height * Math.min(1, 1060 / Math.max(layout.width, 1))) + 60));
   const modelOf = new Map(hierarchy.groups.flatMap((g) => g.models.map((m) => [m.rule, m.id] as const)));
 
   return (
@@ -41,8 +52,18 @@ async function Hierarchy({ workspaceId, block }: { workspaceId: string; block: n
         {block !== null ? ` at block size ${block}` : ""} between them, drawn as {grouped.edges.length} class-to-class edge
         {grouped.edges.length === 1 ? "" : "s"}. Arrows point from the finer rule to the one it coarse-grains onto; ↻ marks maps between rules of the same class.
       </p>
+      {focused ? (
+        <p className="text-sm text-ink-soft">
+          Showing class {focus}, what it coarse-grains onto and what coarse-grains onto it ({drawn.length} classes).{" "}
+          <Link href={hierarchyHref(block, null)} className="font-medium text-tide-700 underline">
+            Show the whole hierarchy
+          </Link>
+        </p>
+      ) : (
+        <p className="text-sm text-ink-soft">Drag to pan, scroll to zoom; pick a class below to see only its ancestors and descendants.</p>
+      )}
       {drawn.length > 0 ? (
-        <AtlasGraph layout={layout} height={height} />
+        <AtlasGraph layout={layout} height={focused ? height : Math.max(height, 560)} readableZoom={focused ? 0.1 : 0.6} minimap={!focused} />
       ) : (
         <p className="rounded-md bg-paper px-3 py-6 text-center text-sm text-ink-faint">No coarse-graining between ECAs is certified{block !== null ? " at this block size" : ""} yet.</p>
       )}
@@ -50,7 +71,12 @@ async function Hierarchy({ workspaceId, block }: { workspaceId: string; block: n
         <ul className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-4">
           {grouped.groups.map((g) => (
             <li key={g.symmetryClass} className="flex items-baseline gap-2 border-b border-line/60 py-1">
-              <Link href={`/atlas?class=${g.symmetryClass}`} className="w-20 shrink-0 whitespace-nowrap font-mono text-xs text-ink-faint hover:text-tide-700">
+              <Link
+                href={hierarchyHref(block, g.symmetryClass)}
+                aria-current={g.symmetryClass === focus ? "true" : undefined}
+                title={`Draw only class ${g.symmetryClass} and the classes above and below it`}
+                className={`w-20 shrink-0 whitespace-nowrap font-mono text-xs hover:text-tide-700 ${g.symmetryClass === focus ? "font-semibold text-tide-700" : "text-ink-faint"}`}
+              >
                 class {g.symmetryClass}
               </Link>
               <span className="flex flex-wrap gap-x-2 font-mono">
@@ -75,7 +101,8 @@ async function Hierarchy({ workspaceId, block }: { workspaceId: string; block: n
 
 export default async function HierarchyPage({ searchParams }: Props) {
   const [{ workspace }, params] = await Promise.all([getWorkspaceContext(), searchParams]);
-  const block = blockOf(params.block);
+  const block = numberOf(params.block, 2);
+  const focus = numberOf(params.focus, 3);
   const blocks = [null, 2, 3, 4];
   return (
     <div className="mx-auto max-w-6xl space-y-5 px-5 py-8">
@@ -93,7 +120,7 @@ export default async function HierarchyPage({ searchParams }: Props) {
         {blocks.map((b) => (
           <Link
             key={String(b)}
-            href={b === null ? "/atlas/hierarchy" : `/atlas/hierarchy?block=${b}`}
+            href={hierarchyHref(b, focus)}
             aria-current={b === block ? "page" : undefined}
             className={`rounded-md px-2.5 py-1 ${b === block ? "bg-tide-700 text-paper-raised" : "text-tide-700 hover:bg-tide-50"}`}
           >
@@ -101,8 +128,8 @@ export default async function HierarchyPage({ searchParams }: Props) {
           </Link>
         ))}
       </nav>
-      <Suspense key={String(block)} fallback={<Skeleton lines={10} label="Laying out the hierarchy" />}>
-        <Hierarchy workspaceId={workspace.id} block={block} />
+      <Suspense key={`${block}:${focus}`} fallback={<Skeleton lines={10} label="Laying out the hierarchy" />}>
+        <Hierarchy workspaceId={workspace.id} block={block} focus={focus} />
       </Suspense>
     </div>
   );
