@@ -31,6 +31,11 @@ describe("targetInScope", () => {
     expect(targetInScope(record("binary-projections"), { targetKinds: ["ca"] }, "eca")).toBe(false);
   });
 
+  it("proves nothing from a search that says it was not exhaustive", () => {
+    expect(targetInScope(record("binary-projections"), { targetKinds: ["eca"], exhaustive: false }, "eca")).toBe(false);
+    expect(targetInScope(record("binary-projections"), { targetKinds: ["eca"], exhaustive: true }, "eca")).toBe(true);
+  });
+
   it("claims nothing for a search kind it does not know", () => {
     expect(targetInScope(record("something-new"), {}, "eca")).toBe(false);
   });
