@@ -3,6 +3,7 @@ import { getMembershipRole } from "@/db/queries/memberships";
 import { createApiToken, listApiTokens, revokeApiToken, type ApiTokenView } from "@/db/queries/tokens";
 import { can, isRoleWithin, refusalReason, type Role } from "@/lib/policy";
 import { AppError } from "@/server/errors";
+import { forgetTokens } from "./cache";
 import { generateTokenSecret, hashTokenSecret, tokenDisplayPrefix } from "./secret";
 
 export { generateTokenSecret, hashTokenSecret, TOKEN_PREFIX } from "./secret";
@@ -43,7 +44,9 @@ export async function createPersonalToken({
 }
 
 export async function revokePersonalToken({ userId, tokenId }: { userId: string; tokenId: string }): Promise<ApiTokenView> {
-  return revokeApiToken({ userId, tokenId });
+  const revoked = await revokeApiToken({ userId, tokenId });
+  forgetTokens();
+  return revoked;
 }
 
 export async function listPersonalTokens({ userId, workspaceId }: { userId: string; workspaceId?: string }) {

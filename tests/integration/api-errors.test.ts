@@ -95,6 +95,8 @@ describe("the API's answers from the one error table", () => {
     const made = await submit({ certificate: built.certificate });
     const id = made.json.mapId as string;
     const path = `/api/maps/${id}/retract`;
+    const noModel = await call(modelMaps.GET, { path: "/api/models/nope/maps", params: { id: "nope" }, token: contributor });
+    expect(noModel).toMatchObject({ status: 404, json: { error: { code: "not_found", field: "id" } } });
     expect((await call(retract.POST, { path: "/api/maps/nope/retract", method: "POST", body: { reason: "wrong" }, params: { id: "nope" }, token: curator })).status).toBe(404);
     expect((await call(retract.POST, { path, method: "POST", body: {}, params: { id }, token: curator })).json).toMatchObject({ error: { field: "reason" } });
     expect((await call(retract.POST, { path, method: "POST", body: { reason: "a typo in the labels" }, params: { id }, token: curator })).status).toBe(200);

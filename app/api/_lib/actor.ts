@@ -3,6 +3,7 @@ import { findActiveApiToken, touchApiToken } from "@/db/queries/tokens";
 import { listWorkspacesForUser } from "@/db/queries/workspaces";
 import { can, refusalReason, roleRank, type Action, type Role } from "@/lib/policy";
 import { AppError } from "@/server/errors";
+import { cachedToken, rememberToken } from "@/server/tokens/cache";
 import { hashTokenSecret } from "@/server/tokens/secret";
 
 export type ActorUser = { id: string; email: string; name: string };
@@ -57,7 +58,16 @@ async function resolveToken(header: string): Promise<Actor> {
   if (!match) {
     throw new AppError("unauthenticated", "The Authorization header must be `Bearer <token>`.", { field: "authorization" });
   }
-  const found = await findActiveApiToken({ tokenHash: hashTokenSecret(match[1]) });
+  const hash = hashTokenSecret(match[1]);
+  const cached = cachedToken<Actor>(hash);
+  if (cached) return cached;
+  const actor = await lookUpToken(hash);
+  rememberToken(hash, actor);
+  return actor;
+}
+
+async function lookUpToken(tokenHash: string): Promise<Actor> {
+  const found = await findActiveApiToken({ tokenHash });
   if (!found) throw new AppError("unauthenticated", "This API token is unknown or revoked.", { field: "authorization" });
   // A write per read would serialise every API read behind the write lock: note use once a minute.
   const lastUsed = found.token.lastUsedAt?.getTime() ?? 0;

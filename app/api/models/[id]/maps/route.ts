@@ -10,9 +10,13 @@ export const GET = route<{ id: string }>(async (request, { params }) => {
   const query = parseQuery(request, Query);
   const actor = await resolveActor(request);
   authorize(actor, "atlas:read");
-  const model = await getModel({ workspaceId: actor.workspace.id, idOrAddress: id });
-  if (!model) throw new AppError("not_found", `No model ${id} in this workspace.`, { field: "id" });
+  const workspaceId = actor.workspace.id;
   const list = query.direction === "from" ? listMapsFrom : listMapsTo;
-  const page = await list({ workspaceId: actor.workspace.id, modelId: model.id, ...query });
+  const notFound = () => new AppError("not_found", `No model ${id} in this workspace.`, { field: "id" });
+  // By id the list is the only query on the hot path; an empty page checks that the model exists.
+  const modelId = id.startsWith("sha256:") ? (await getModel({ workspaceId, idOrAddress: id }))?.id : id;
+  if (!modelId) throw notFound();
+  const page = await list({ workspaceId, modelId, ...query });
+  if (page.items.length === 0 && !(await getModel({ workspaceId, idOrAddress: modelId }))) throw notFound();
   return Response.json({ items: page.items.map(mapJson), nextCursor: page.nextCursor });
 });
