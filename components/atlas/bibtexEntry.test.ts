@@ -32,6 +32,10 @@ describe("bibtexEntry", () => {
     expect(escapeBibtex("50% of {a}_b #1 $x$")).toBe("50\\% of \\{a\\}\\_b \\#1 \\$x\\$");
   });
 
+  it("spells the arrow and the middle dot of our summaries in plain LaTeX", () => {
+    expect(escapeBibtex("ECA 146 → ECA 128 · block 3")).toBe("ECA 146 {$\\to$} ECA 128 {\\textperiodcentered} block 3");
+  });
+
   it("falls back to the atlas as author when the author's account is gone", () => {
     expect(bibtexEntry({ ...input, authorName: null })).toContain("author       = {Squarely atlas}");
   });

@@ -9,9 +9,13 @@ export type BibtexInput = {
   url: string;
 };
 
+/** Symbols our summaries use that 8-bit LaTeX does not know, spelled in plain LaTeX. */
+const SYMBOLS: Record<string, string> = { "→": "{$\\to$}", "·": "{\\textperiodcentered}", "∘": "{$\\circ$}" };
+
 /** BibTeX's special characters, escaped so that names and claims survive LaTeX. */
 export function escapeBibtex(text: string): string {
-  return text.replace(/[\\{}&%$#_^~]/g, (c) => {
+  return text.replace(/[\\{}&%$#_^~→·∘]/g, (c) => {
+    if (SYMBOLS[c]) return SYMBOLS[c];
     if (c === "\\") return "\\textbackslash{}";
     if (c === "^") return "\\^{}";
     if (c === "~") return "\\~{}";

@@ -4,7 +4,7 @@ export function MapKindBadge({ kind, block, steps }: { kind: string; block: numb
     <span className="inline-flex items-center gap-1 whitespace-nowrap rounded border border-line-strong bg-paper px-1.5 py-0.5 font-mono text-xs text-ink-soft">
       {kind}
       {block !== null ? <span className="text-ink-faint">· N={block}</span> : null}
-      {steps !== null && steps !== block ? <span className="text-ink-faint">· T={steps}</span> : null}
+      {steps !== null && steps !== block && !(block === null && steps === 1) ? <span className="text-ink-faint">· T={steps}</span> : null}
     </span>
   );
 }

@@ -24,7 +24,7 @@ function linkText(link: EditorLink): string {
 }
 
 function kindText(link: EditorLink): string {
-  return `${link.kind}${link.block !== null ? ` · N=${link.block}` : ""}${link.steps !== null && link.steps !== link.block ? ` · T=${link.steps}` : ""}`;
+  return `${link.kind}${link.block !== null ? ` · N=${link.block}` : ""}${link.steps !== null && link.steps !== link.block && !(link.block === null && link.steps === 1) ? ` · T=${link.steps}` : ""}`;
 }
 
 /**
