@@ -2,7 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { bibtexEntry } from "@/components/atlas/bibtexEntry";
-import { prettyJson } from "@/components/atlas/canonicalView";
+import { CanonicalModel } from "@/components/atlas/canonical-model";
+import { canonicalView, prettyJson } from "@/components/atlas/canonicalView";
 import { CopyBlock } from "@/components/atlas/copy-block";
 import { DownloadJson } from "@/components/atlas/download-link";
 import { MapKindBadge, StatusBadge } from "@/components/atlas/map-badges";
@@ -133,6 +134,21 @@ export default async function MapPage({ params }: Props) {
           <CopyBlock text={tikz} label="tikz-cd source of the commuting square" wrap />
         </Panel>
       </div>
+
+      {source.kind === "markov" && target.kind === "markov" ? (
+        <Panel title="The two chains">
+          <div className="grid gap-6 md:grid-cols-2">
+            <div className="min-w-0">
+              <p className="mb-2 text-sm font-medium">{source.name}</p>
+              <CanonicalModel view={canonicalView(source.canonical)} />
+            </div>
+            <div className="min-w-0">
+              <p className="mb-2 text-sm font-medium">{target.name}</p>
+              <CanonicalModel view={canonicalView(target.canonical)} />
+            </div>
+          </div>
+        </Panel>
+      ) : null}
 
       <Panel title="Certificate JSON">
         <CopyBlock text={prettyJson(certificate.body)} label="Certificate JSON" maxHeight="28rem" />
