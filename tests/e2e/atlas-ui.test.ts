@@ -102,7 +102,8 @@ describe("the atlas as a theorist sees it", () => {
     const page = await signedIn("viewer");
     await page.goto(`${server.url}/atlas?q=3%20states`);
     await page.click("table tbody a");
-    await page.locator("h1").waitFor();
+    await page.waitForURL(/\/atlas\/models\//);
+    await page.locator("table.font-mono").waitFor();
     const cells = await page.locator("table.font-mono tbody td").allTextContents();
     expect(cells).toEqual(["12", "14", "14", "14", "12", "14", "14", "14", "12"]);
     await expect(page.getByText("Coarse-grains onto (1)").count()).resolves.toBe(1);
@@ -148,8 +149,9 @@ describe("the atlas as a theorist sees it", () => {
     await page.fill("#retract-reason", "Checked against the wrong projection convention.");
     await page.click("text=Retract this map");
     await page.getByText("The map is retracted").waitFor();
-    const [after] = await server.db.select().from(maps).where(eq(maps.id, mapIds["90-90"]));
-    expect(after).toMatchObject({ status: "retracted", retractedReason: "Checked against the wrong projection convention." });
+    await expect
+      .poll(async () => (await server.db.select().from(maps).where(eq(maps.id, mapIds["90-90"])))[0], { timeout: 10_000 })
+      .toMatchObject({ status: "retracted", retractedReason: "Checked against the wrong projection convention." });
     await page.reload();
     await expect(page.getByText("Reason: Checked against the wrong projection convention.").count()).resolves.toBe(1);
     await page.context().close();
