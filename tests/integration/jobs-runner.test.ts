@@ -115,7 +115,7 @@ describe("the in-process job queue", () => {
 
   it("fails a job that exceeds its memory bound, and the pool keeps working", async () => {
     const job = await queue.enqueue({ workspaceId: ws, ownerId: people.contributor.id, kind: "test-sleep-and-count", params: { steps: 60, stepMs: 0, allocateMb: 16 } });
-    const done = await waitFor(() => get(job.id), finished, 20_000);
+    const done = await waitFor(() => get(job.id), finished, 60_000);
     expect(done.status).toBe("failed");
     expect(done.error).toBe("the job exceeded its memory bound of 96 MB");
     const next = await queue.enqueue({ workspaceId: ws, ownerId: people.contributor.id, kind: "test-sleep-and-count", params: { steps: 3, stepMs: 1 } });
