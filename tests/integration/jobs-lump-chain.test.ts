@@ -1,37 +1,24 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
-import { setDatabase } from "@/db/queries/connection";
 import { listMapsFrom } from "@/db/queries/maps";
 import { getModel } from "@/db/queries/models";
 import { listSearchRecords } from "@/db/queries/search";
 import { canonicalModel, modelAddress } from "@/lib/models";
-import { closeVerificationPool } from "@/server/atlas/pool";
-import { createInProcessQueue } from "@/server/jobs/in-process-queue";
-import { createJobRunner, type JobRunner } from "@/server/jobs/job-runner";
-import "@/server/jobs/kinds";
+import type { TestDatabase } from "@/tests/support/database";
+import type { JobRunner } from "@/server/jobs/job-runner";
 import type { JobQueue } from "@/server/jobs/queue";
-import { seedPeople } from "./jobs-fixtures";
+import { closeJobKindTestbed, openJobKindTestbed, type People } from "./jobs-fixtures";
 
 let t: TestDatabase;
 let queue: JobQueue;
 let runner: JobRunner;
 let ws: string;
-let people: Awaited<ReturnType<typeof seedPeople>>["people"];
+let people: People;
 
 beforeAll(async () => {
-  t = await createTestDatabase();
-  setDatabase(t.db);
-  ({ workspace: { id: ws }, people } = await seedPeople(t.db));
-  queue = createInProcessQueue({ db: t.db, perUserLimit: 4 });
-  runner = createJobRunner({ db: t.db, workers: 1, pollMs: 100 });
+  ({ t, queue, runner, ws, people } = await openJobKindTestbed());
 });
 
-afterAll(async () => {
-  await runner.stop();
-  await closeVerificationPool();
-  setDatabase(null);
-  t.cleanup();
-});
+afterAll(() => closeJobKindTestbed({ t, runner }));
 
 // Two interchangeable service bays (invented numbers): empty, left busy, right busy, both busy.
 const bays = {

@@ -1,17 +1,13 @@
 import Fraction from "fraction.js";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
-import { setDatabase } from "@/db/queries/connection";
 import { chains, maps } from "@/db/schema";
 import { getChain } from "@/db/queries/chains";
 import { getCertificate } from "@/db/queries/certificates";
 import { certifyDecimation, certifyLumping, type Certificate } from "@/lib/certificate";
-import { closeVerificationPool } from "@/server/atlas/pool";
-import { createInProcessQueue } from "@/server/jobs/in-process-queue";
-import { createJobRunner, type JobRunner } from "@/server/jobs/job-runner";
-import "@/server/jobs/kinds";
+import type { TestDatabase } from "@/tests/support/database";
+import type { JobRunner } from "@/server/jobs/job-runner";
 import type { JobQueue } from "@/server/jobs/queue";
-import { seedPeople } from "./jobs-fixtures";
+import { closeJobKindTestbed, openJobKindTestbed, type People } from "./jobs-fixtures";
 
 // An invented four-state chain, lumpable by {a,b},{c,d} (Kemeny & Snell, Finite Markov Chains, §6.3:
 // each row of a block puts equal mass on every block): Q = [[3/4, 1/4], [2/3, 1/3]].
@@ -35,22 +31,13 @@ let t: TestDatabase;
 let queue: JobQueue;
 let runner: JobRunner;
 let ws: string;
-let people: Awaited<ReturnType<typeof seedPeople>>["people"];
+let people: People;
 
 beforeAll(async () => {
-  t = await createTestDatabase();
-  setDatabase(t.db);
-  ({ workspace: { id: ws }, people } = await seedPeople(t.db));
-  queue = createInProcessQueue({ db: t.db, perUserLimit: 4 });
-  runner = createJobRunner({ db: t.db, workers: 1, pollMs: 100 });
+  ({ t, queue, runner, ws, people } = await openJobKindTestbed());
 });
 
-afterAll(async () => {
-  await runner.stop();
-  await closeVerificationPool();
-  setDatabase(null);
-  t.cleanup();
-});
+afterAll(() => closeJobKindTestbed({ t, runner }));
 
 describe("the verify-chain job", () => {
   it("checks lumping-then-decimation as one composite and stores the links and the chain", async () => {
