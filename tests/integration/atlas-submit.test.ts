@@ -97,8 +97,10 @@ describe("server-side verification in a worker thread", () => {
   });
 
   it("a check beyond the time bound is stopped and answered 413", async () => {
-    const big = { kind: "projection" as const, rule: 110, block: 8, projection: "0".repeat(255) + "1" };
-    const err = await runVerification({ op: "build", build: big }, { sizes: { maxBlock: 8, maxAlphabet: 256, maxStates: 200, maxWindows: 2 ** 24, maxDigits: 10_000, maxSteps: 64 }, timeoutMs: 300, memoryMb: 256 }).catch(
+    // A square that commutes (rule 204 is the identity, so every projection does), so the check cannot stop
+    // early at a counterexample: it must visit all 2^24 windows, far beyond a 50 ms bound on any machine.
+    const big = { kind: "projection" as const, rule: 204, block: 8, projection: "0".repeat(128) + "1".repeat(128) };
+    const err = await runVerification({ op: "build", build: big }, { sizes: { maxBlock: 8, maxAlphabet: 256, maxStates: 200, maxWindows: 2 ** 24, maxDigits: 10_000, maxSteps: 64 }, timeoutMs: 50, memoryMb: 256 }).catch(
       (e: unknown) => e,
     );
     expect(err).toMatchObject({ code: "too_large", details: { bound: "time" } });
