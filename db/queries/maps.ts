@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, gt, inArray, ne, type SQL } from "drizzle-orm";
+import { and, asc, eq, gt, inArray, ne, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import {
   maps,
@@ -241,6 +241,12 @@ async function listMapsAt(
   direction: "from" | "to",
 ): Promise<{ items: MapView[]; nextCursor: string | null }> {
   return withDb("listing maps", async () => {
+    if (!kind && block === undefined && !cursor && !includeRetracted) {
+      const rows = await hotMapList(db, direction).all({ workspaceId, modelId, limit: limit + 1 });
+      const items = rows.slice(0, limit).map(toView);
+      const last = items[items.length - 1];
+      return { items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null };
+    }
     const conditions: SQL[] = [
       eq(maps.workspaceId, workspaceId),
       eq(direction === "from" ? maps.sourceModelId : maps.targetModelId, modelId),
@@ -258,6 +264,34 @@ async function listMapsAt(
     const last = items[items.length - 1];
     return { items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null };
   });
+}
+
+// The unfiltered first page of "coarse-grains to/from" is the atlas's hottest read: its statement is
+// prepared once per database and direction, which halves the time drizzle spends per call
+// (bench/api.bench.ts measures it). Filtered and later pages build their query as usual.
+const hotMapLists = new WeakMap<object, Record<"from" | "to", ReturnType<typeof prepareHotMapList>>>();
+
+function prepareHotMapList(db: Executor, direction: "from" | "to") {
+  return selectMapViews(db)
+    .where(
+      and(
+        eq(maps.workspaceId, sql.placeholder("workspaceId")),
+        eq(direction === "from" ? maps.sourceModelId : maps.targetModelId, sql.placeholder("modelId")),
+        eq(maps.status, "certified"),
+      ),
+    )
+    .orderBy(asc(maps.id))
+    .limit(sql.placeholder("limit"))
+    .prepare();
+}
+
+function hotMapList(db: Executor, direction: "from" | "to") {
+  let prepared = hotMapLists.get(db);
+  if (!prepared) {
+    prepared = { from: prepareHotMapList(db, "from"), to: prepareHotMapList(db, "to") };
+    hotMapLists.set(db, prepared);
+  }
+  return prepared[direction];
 }
 
 /**
