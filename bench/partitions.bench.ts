@@ -1,7 +1,7 @@
 /**
  * General-partition (congruence) sweep of all 256 ECAs: for each rule the smallest block size with a proper
- * coarse-graining, up to N = 7 (the reach of Song & Grochow, arXiv:2012.12153, 2020, and Dzwinel & Magiera,
- * J. Comput. Sci., 2015), then on to N = 8 with progress. Baseline in the same run: plain enumeration of every
+ * coarse-graining, up to N = 7 (the published reach; Dzwinel & Magiera, J. Comput. Sci., 2015), then on to
+ * N = 8 with progress. Baseline in the same run: plain enumeration of every
  * set partition of the block states at N = 3 (Bell(8) = 4,140 per rule; at N = 4 it would be Bell(16) ≈ 1.05·10^10).
  */
 import { smallestBlockHeadline } from "@/cli/commands/atlas";
