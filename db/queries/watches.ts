@@ -3,18 +3,16 @@ import { and, asc, eq, sql } from "drizzle-orm";
 import { models, watches, type Watch } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
 
+/** One person and one model of a workspace: what every watch query is about. */
+type WatchTarget = { db?: Executor; workspaceId: string; userId: string; modelId: string };
+
 /** Starts watching a model of the workspace; watching twice is the same watch. Returns null when the model is not in the workspace. */
 export async function watchModel({
   db = getDatabase(),
   workspaceId,
   userId,
   modelId,
-}: {
-  db?: Executor;
-  workspaceId: string;
-  userId: string;
-  modelId: string;
-}): Promise<Watch | null> {
+}: WatchTarget): Promise<Watch | null> {
   return withDb("watching a model", async () => {
     const [model] = await db
       .select({ id: models.id })
@@ -38,12 +36,7 @@ export async function unwatchModel({
   workspaceId,
   userId,
   modelId,
-}: {
-  db?: Executor;
-  workspaceId: string;
-  userId: string;
-  modelId: string;
-}): Promise<boolean> {
+}: WatchTarget): Promise<boolean> {
   return withDb("unwatching a model", async () => {
     const removed = await db
       .delete(watches)
@@ -59,12 +52,7 @@ export async function getWatchState({
   workspaceId,
   userId,
   modelId,
-}: {
-  db?: Executor;
-  workspaceId: string;
-  userId: string;
-  modelId: string;
-}): Promise<{ watching: boolean; watchers: number }> {
+}: WatchTarget): Promise<{ watching: boolean; watchers: number }> {
   return withDb("reading watchers", async () => {
     const [row] = await db
       .select({

@@ -1,18 +1,9 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { setDatabase } from "@/db/queries/connection";
+import { describe, expect, it } from "vitest";
 import { consumeSignInToken, createSignInToken } from "@/db/queries/sign-in-tokens";
 import { signInTokens } from "@/db/schema";
-import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
+import { useQueryLayerDatabase } from "@/tests/support/query-database";
 
-let t: TestDatabase;
-beforeAll(async () => {
-  t = await createTestDatabase();
-  setDatabase(t.db);
-}, 60_000);
-afterAll(() => {
-  setDatabase(null);
-  t.cleanup();
-});
+const testDb = useQueryLayerDatabase();
 
 describe("one-time sign-in tokens", () => {
   it("can be used once, and only before they expire", async () => {
@@ -35,7 +26,7 @@ describe("one-time sign-in tokens", () => {
   it("clears expired tokens when a new one is issued", async () => {
     await createSignInToken({ email: "old@example.org", tokenHash: "old", expiresAt: new Date(Date.now() - 1000) });
     await createSignInToken({ email: "new@example.org", tokenHash: "new", expiresAt: new Date(Date.now() + 60_000) });
-    const hashes = (await t.db.select().from(signInTokens)).map((r) => r.tokenHash);
+    const hashes = (await testDb().db.select().from(signInTokens)).map((r) => r.tokenHash);
     expect(hashes).not.toContain("old");
     expect(hashes).toContain("new");
   });

@@ -1,21 +1,12 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
-import { setDatabase } from "@/db/queries/connection";
 import { createUserWithWorkspace, ensureUser, getUserByEmail } from "@/db/queries/users";
 import { listWorkspacesForUser } from "@/db/queries/workspaces";
 import { memberships, users, workspaces } from "@/db/schema";
 import { hashPassword, verifyPassword } from "@/server/auth/password";
-import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
+import { useQueryLayerDatabase } from "@/tests/support/query-database";
 
-let t: TestDatabase;
-beforeAll(async () => {
-  t = await createTestDatabase();
-  setDatabase(t.db);
-}, 60_000);
-afterAll(() => {
-  setDatabase(null);
-  t.cleanup();
-});
+const testDb = useQueryLayerDatabase();
 
 describe("signing up", () => {
   it("creates the user, their own workspace and an admin membership together", async () => {
@@ -34,7 +25,7 @@ describe("signing up", () => {
   });
 
   it("refuses a taken e-mail as a conflict on the email field and writes nothing", async () => {
-    const before = await t.db.select().from(workspaces);
+    const before = await testDb().db.select().from(workspaces);
     const attempt = createUserWithWorkspace({
       email: "mira.solberg@example.org",
       name: "Someone Else",
@@ -42,8 +33,8 @@ describe("signing up", () => {
       workspaceName: "Other atlas",
     });
     await expect(attempt).rejects.toMatchObject({ code: "conflict", field: "email" });
-    expect(await t.db.select().from(workspaces)).toHaveLength(before.length);
-    expect(await t.db.select().from(users).where(eq(users.name, "Someone Else"))).toEqual([]);
+    expect(await testDb().db.select().from(workspaces)).toHaveLength(before.length);
+    expect(await testDb().db.select().from(users).where(eq(users.name, "Someone Else"))).toEqual([]);
   });
 
   it("answers no user for an unknown address and a fixed-time check for a missing hash", async () => {
@@ -57,7 +48,7 @@ describe("ensureUser", () => {
     const first = await ensureUser({ email: "olu@example.org", name: "Olu", passwordHash: null });
     const second = await ensureUser({ email: "OLU@example.org", name: "Renamed", passwordHash: "h" });
     expect(second).toEqual(first);
-    expect(await t.db.select().from(users).where(eq(users.email, "olu@example.org"))).toHaveLength(1);
-    expect(await t.db.select().from(memberships).where(eq(memberships.userId, first.id))).toEqual([]);
+    expect(await testDb().db.select().from(users).where(eq(users.email, "olu@example.org"))).toHaveLength(1);
+    expect(await testDb().db.select().from(memberships).where(eq(memberships.userId, first.id))).toEqual([]);
   });
 });

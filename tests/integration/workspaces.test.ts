@@ -1,20 +1,11 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { setDatabase } from "@/db/queries/connection";
+import { describe, expect, it } from "vitest";
 import { getMembershipRole, listMembers, setMembership } from "@/db/queries/memberships";
 import { countNotes, createNote, listActivity } from "@/db/queries/notes";
 import { ensureUser } from "@/db/queries/users";
 import { ensureWorkspace, getWorkspaceBySlug, getWorkspaceSummary, listWorkspacesForUser } from "@/db/queries/workspaces";
-import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
+import { useQueryLayerDatabase } from "@/tests/support/query-database";
 
-let t: TestDatabase;
-beforeAll(async () => {
-  t = await createTestDatabase();
-  setDatabase(t.db);
-}, 60_000);
-afterAll(() => {
-  setDatabase(null);
-  t.cleanup();
-});
+useQueryLayerDatabase();
 
 describe("workspaces and memberships", () => {
   it("creates a workspace once by slug and keeps the first name", async () => {
