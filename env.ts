@@ -18,6 +18,20 @@ const EnvSchema = z.object({
   MAIL_FROM: z.string().default("Squarely <atlas@squarely.local>"),
   /** Start the local SMTP catcher inside the app process (demo, development and tests). */
   MAIL_CATCHER: z.enum(["on", "off"]).default("on"),
+  /**
+   * Operators who may read the catcher's page /dev/mail: a comma-separated list of e-mail addresses.
+   * Deliberately not a workspace role: anyone who signs up is admin of a workspace of their own, and
+   * the catcher holds every message of the installation, sign-in links included. Empty: nobody.
+   */
+  MAIL_OPERATORS: z
+    .string()
+    .default("")
+    .transform((v) =>
+      v
+        .split(",")
+        .map((e) => e.trim().toLowerCase())
+        .filter((e) => e.length > 0),
+    ),
   /** Where the catcher keeps caught messages (one JSON file each) for the /dev/mail page and tests. */
   MAIL_CATCHER_DIR: z.string().min(1).default("data/mail"),
   /** Worker threads that run background jobs inside the app process. */

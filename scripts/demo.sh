@@ -7,6 +7,8 @@ cd "$(dirname "$0")/.."
 PORT="${PORT:-3000}"
 export APP_URL="${APP_URL:-http://localhost:$PORT}"
 export MAIL_CATCHER="${MAIL_CATCHER:-on}"
+# The demo admin may read the catcher's page; nobody else (see env.ts, MAIL_OPERATORS).
+export MAIL_OPERATORS="${MAIL_OPERATORS:-ines@kestrel-lab.example}"
 export NEXT_TELEMETRY_DISABLED=1
 
 bash scripts/ensure-deps.sh
@@ -46,7 +48,7 @@ cat <<BANNER
   Demo sign-ins (Kestrel Lab, an invented research group):
 $(node --conditions=react-server --import tsx scripts/demo-people.ts)
 
-  Caught mail (sign-in links, notifications): $APP_URL/dev/mail (admins)
+  Caught mail (sign-in links, notifications): $APP_URL/dev/mail (operators: $MAIL_OPERATORS)
   Stop with Ctrl-C.
 
 BANNER

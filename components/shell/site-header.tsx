@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { can } from "@/lib/policy";
+import { isMailOperator } from "@/server/mail/operators";
 import { switchWorkspace } from "@/app/actions";
 import { signOutAction } from "@/app/(auth)/actions";
 import { getSessionUser, getWorkspaceContext, listMyWorkspaces } from "@/server/context";
@@ -22,7 +22,7 @@ export async function SiteHeader() {
   const user = await getSessionUser();
   const workspaces = user ? await listMyWorkspaces() : [];
   const context = user && workspaces.length > 0 ? await getWorkspaceContext() : null;
-  const links = context && can(context.role, "mail:view") ? [...SIGNED_IN_LINKS, { href: "/dev/mail", label: "Mail" }] : SIGNED_IN_LINKS;
+  const links = user && isMailOperator(user.email) ? [...SIGNED_IN_LINKS, { href: "/dev/mail", label: "Mail" }] : SIGNED_IN_LINKS;
 
   return (
     <header className="bg-tide-900 text-paper-raised">

@@ -19,7 +19,6 @@ export const ACTIONS = [
   "map:retract",
   "job:cancel-any",
   "member:manage",
-  "mail:view",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -38,7 +37,6 @@ export const LEAST_ROLE: Record<Action, Role> = {
   "map:retract": "curator",
   "job:cancel-any": "admin",
   "member:manage": "admin",
-  "mail:view": "admin",
 };
 
 export function roleRank(role: Role): number {

@@ -168,7 +168,7 @@ describe("roles are enforced by the server", () => {
 });
 
 describe("the e-mail sign-in link", () => {
-  it("arrives in the mail catcher, signs the person in once, and shows up for admins on /dev/mail", async () => {
+  it("arrives in the mail catcher, signs the person in once, and shows up for the operator on /dev/mail", async () => {
     const curator = person("curator");
     const page = await newPage();
     await page.goto(`${server.url}/sign-in-by-link`);
@@ -199,6 +199,31 @@ describe("the e-mail sign-in link", () => {
     await admin.goto(`${server.url}/dev/mail`);
     await expect(admin.locator("article h2").first().textContent()).resolves.toBe("Your Squarely sign-in link");
     for (const p of [page, again, admin]) await p.context().close();
+  });
+
+  it("never shows caught mail to someone who signs up (admin of their own workspace) and asks for another person's link", async () => {
+    // Regression of the account takeover: a fresh account is admin of its own workspace, yet the
+    // catcher's page is for operators (MAIL_OPERATORS) only, so the link stays unseen.
+    const victim = person("contributor");
+    const attacker = await newPage();
+    await attacker.goto(`${server.url}/sign-up`);
+    await attacker.fill("#name", "Mallory Test");
+    await attacker.fill("#email", "mallory@example.org");
+    await attacker.fill("#password", "not-an-operator-2026");
+    await attacker.fill("#workspaceName", "Mallory's atlas");
+    await attacker.click("form button[type=submit]");
+    await attacker.waitForURL(`${server.url}/dashboard`);
+    await attacker.goto(`${server.url}/sign-in-by-link`);
+    await attacker.fill("#email", victim.email);
+    await attacker.click("form button[type=submit]");
+    await attacker.locator("#form-message [role=status]").waitFor();
+    await server.waitForMail((m) => m.to.includes(victim.email));
+
+    const response = await attacker.goto(`${server.url}/dev/mail`);
+    expect(response?.status()).toBe(404);
+    await expect(attacker.getByText("sign-in link").count()).resolves.toBe(0);
+    await expect(attacker.locator("header a[href='/dev/mail']").count()).resolves.toBe(0);
+    await attacker.context().close();
   });
 
   it("answers the same for an address without an account and sends nothing", async () => {

@@ -7,7 +7,7 @@ import { join } from "node:path";
 import { createDatabase, type Database } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
 import { setDatabase } from "@/db/queries/connection";
-import { seedPeople, type DemoPerson } from "@/db/seed/people";
+import { DEMO_PEOPLE, seedPeople, type DemoPerson } from "@/db/seed/people";
 import { listCaughtMessages, type CaughtMessage } from "@/server/mail/store";
 import { freePort } from "./ports";
 
@@ -77,6 +77,7 @@ export async function startTestServer(): Promise<TestServer> {
       SMTP_PORT: String(smtpPort),
       MAIL_CATCHER: "on",
       MAIL_CATCHER_DIR: mailDir,
+      MAIL_OPERATORS: DEMO_PEOPLE.find((p) => p.role === "admin")?.email ?? "",
       JOB_WORKERS: "1",
       NEXT_TELEMETRY_DISABLED: "1",
     },

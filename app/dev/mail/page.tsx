@@ -2,7 +2,9 @@ import type { Metadata } from "next";
 import { env } from "@/env";
 import { Panel } from "@/components/ui/panel";
 import { listCaughtMessages } from "@/server/mail/store";
-import { requireAction } from "@/server/context";
+import { notFound } from "next/navigation";
+import { requireUser } from "@/server/context";
+import { isMailOperator } from "@/server/mail/operators";
 
 export const metadata: Metadata = { title: "Caught mail" };
 
@@ -27,25 +29,20 @@ function Linked({ text }: { text: string }) {
 }
 
 export default async function CaughtMailPage() {
-  await requireAction("mail:view");
-  const catching = env.MAIL_CATCHER === "on";
-  const messages = catching ? await listCaughtMessages(env.MAIL_CATCHER_DIR, { limit: 50 }) : [];
+  // Operators only (MAIL_OPERATORS), never a workspace role: to anyone else the page does not exist.
+  const user = await requireUser();
+  if (!isMailOperator(user.email)) notFound();
+  const messages = await listCaughtMessages(env.MAIL_CATCHER_DIR, { limit: 50 });
   return (
     <div className="mx-auto max-w-4xl space-y-6 px-5 py-8">
       <div>
         <h1 className="text-3xl font-semibold tracking-tight text-tide-900">Caught mail</h1>
         <p className="mt-2 text-sm text-ink-soft">
-          {catching ? (
-            <>
-              The local SMTP catcher on <span className="font-mono">127.0.0.1:{env.SMTP_PORT}</span> keeps every message the app sends instead of
-              delivering it. Newest first; admins only.
-            </>
-          ) : (
-            <>The mail catcher is off (MAIL_CATCHER=off): mail goes to the SMTP host {env.SMTP_HOST} and is not kept here.</>
-          )}
+          The local SMTP catcher on <span className="font-mono">127.0.0.1:{env.SMTP_PORT}</span> keeps every message the app sends instead of
+              delivering it. Newest first; operators only (MAIL_OPERATORS).
         </p>
       </div>
-      {catching && messages.length === 0 ? <Panel>No messages caught yet.</Panel> : null}
+      {messages.length === 0 ? <Panel>No messages caught yet.</Panel> : null}
       <ol className="space-y-4">
         {messages.map((m) => (
           <li key={m.id}>
