@@ -215,7 +215,7 @@ describe("the e-mail sign-in link", () => {
     await attacker.waitForURL(`${server.url}/dashboard`);
     await attacker.goto(`${server.url}/sign-in-by-link`);
     await attacker.fill("#email", victim.email);
-    await attacker.click("form button[type=submit]");
+    await attacker.click("form:has(#email) button[type=submit]");
     await attacker.locator("#form-message [role=status]").waitFor();
     await server.waitForMail((m) => m.to.includes(victim.email));
 
