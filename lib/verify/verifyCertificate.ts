@@ -4,6 +4,8 @@ import type { Issue } from "@/lib/models";
 import { CertificateInputError, canonicalCertificate, certificateAddress, type Certificate, type Counterexample } from "@/lib/certificate";
 import { checkSquare } from "./checkSquare";
 import { DEFAULT_LIMITS, exceededLimit, type Limits } from "./limits";
+import { rawInputRefusal } from "./rawInputRefusal";
+import { readCertificateText } from "./readCertificateText";
 import { structureIssues } from "./structureIssues";
 
 /** Bumped whenever the checker's behaviour changes; recorded with every verification. */
@@ -16,8 +18,9 @@ export type VerifyResult =
   | { status: "too-large"; bound: string; limit: number; asked: number };
 
 /**
- * Verifies a certificate (a parsed JSON value or its text) and never throws: parse → canonical form →
- * seal → structure → limits (before any work) → the exhaustive check.
+ * Verifies a certificate (a parsed JSON value or its text) and never throws: the raw bounds (text,
+ * nesting, duplicate names, digits, sizes: readCertificateText / rawInputRefusal, before any arithmetic)
+ * → canonical form → seal → structure → predicted sizes and cost → the exhaustive check.
  */
 export function verifyCertificate(input: unknown, limits: Limits = DEFAULT_LIMITS): VerifyResult {
   try {
@@ -30,11 +33,12 @@ export function verifyCertificate(input: unknown, limits: Limits = DEFAULT_LIMIT
 function verify(input: unknown, limits: Limits): VerifyResult {
   let value = input;
   if (typeof input === "string") {
-    try {
-      value = JSON.parse(input);
-    } catch (e) {
-      return { status: "malformed", issues: [{ path: "", message: `not JSON: ${e instanceof Error ? e.message : String(e)}` }] };
-    }
+    const read = readCertificateText(input, limits);
+    if (!read.ok) return read.verdict;
+    value = read.value;
+  } else {
+    const refusal = rawInputRefusal(input, limits);
+    if (refusal) return refusal;
   }
   let cert: Certificate;
   try {
@@ -47,7 +51,7 @@ function verify(input: unknown, limits: Limits): VerifyResult {
   if (cert.address !== undefined && cert.address !== address)
     return {
       status: "malformed",
-      issues: [{ path: "address", message: `the certificate carries ${cert.address} but its content hashes to ${address}: it was changed after it was issued` }],
+      issues: [{ path: "address", message: `the certificate carries ${cert.address} but its content hashes to ${address}: the address names other content (an address shows which content is meant, not who issued it)` }],
     };
   const issues = structureIssues(cert);
   if (issues.length > 0) return { status: "malformed", issues };
