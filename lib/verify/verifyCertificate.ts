@@ -20,7 +20,7 @@ export type VerifyResult =
 /**
  * Verifies a certificate (a parsed JSON value or its text) and never throws: the raw bounds (text,
  * nesting, duplicate names, digits, sizes: readCertificateText / rawInputRefusal, before any arithmetic)
- * → canonical form → seal → structure → predicted sizes and cost → the exhaustive check.
+ * → canonical form → structure → predicted sizes and cost → seal → the exhaustive check.
  */
 export function verifyCertificate(input: unknown, limits: Limits = DEFAULT_LIMITS): VerifyResult {
   try {
@@ -47,16 +47,16 @@ function verify(input: unknown, limits: Limits): VerifyResult {
     if (e instanceof CertificateInputError) return { status: "malformed", issues: e.issues };
     throw e;
   }
-  const address = certificateAddress(cert);
-  if (cert.address !== undefined && cert.address !== address)
-    return {
-      status: "malformed",
-      issues: [{ path: "address", message: `the certificate carries ${cert.address} but its content hashes to ${address}: the address names other content (an address shows which content is meant, not who issued it)` }],
-    };
   const issues = structureIssues(cert);
   if (issues.length > 0) return { status: "malformed", issues };
   const tooLarge = exceededLimit(cert, limits);
   if (tooLarge) return { status: "too-large", ...tooLarge };
+  const address = certificateAddress(cert);
+  if (cert.address !== undefined && cert.address !== address)
+    return {
+      status: "malformed",
+      issues: [{ path: "address", message: `the certificate carries the address ${cert.address}, but its content hashes to ${address}, so the address names other content. An address is an unkeyed SHA-256 that anyone can recompute: it identifies content, not who issued it` }],
+    };
   let square;
   try {
     square = checkSquare(cert);
