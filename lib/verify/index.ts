@@ -8,3 +8,4 @@ export type { ReadResult } from "./readCertificateText";
 export { rawInputRefusal } from "./rawInputRefusal";
 export { buildRequestRefusal } from "./buildRequestRefusal";
 export type { Refusal } from "./refusal";
+export type { Equation } from "./checkSquare";

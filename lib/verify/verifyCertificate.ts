@@ -2,7 +2,7 @@ import { CaInputError } from "@/lib/ca";
 import { MatrixInputError } from "@/lib/markov";
 import type { Issue } from "@/lib/models";
 import { CertificateInputError, canonicalCertificate, certificateAddress, type Certificate, type Counterexample } from "@/lib/certificate";
-import { checkSquare } from "./checkSquare";
+import { checkSquare, type Equation } from "./checkSquare";
 import { DEFAULT_LIMITS, exceededLimit, type Limits } from "./limits";
 import { rawInputRefusal } from "./rawInputRefusal";
 import { readCertificateText } from "./readCertificateText";
@@ -12,7 +12,7 @@ import { structureIssues } from "./structureIssues";
 export const CHECKER_VERSION = "squarely-checker/1";
 
 export type VerifyResult =
-  | { status: "holds"; address: string; certificate: Certificate; checkerVersion: string }
+  | { status: "holds"; address: string; certificate: Certificate; checkerVersion: string; equation: Equation }
   | { status: "fails"; address: string; counterexample: Counterexample }
   | { status: "malformed"; issues: Issue[] }
   | { status: "too-large"; bound: string; limit: number; asked: number };
@@ -64,6 +64,7 @@ function verify(input: unknown, limits: Limits): VerifyResult {
     if (e instanceof CaInputError || e instanceof MatrixInputError) return { status: "malformed", issues: [{ path: `map.${e.field}`, message: e.message }] };
     throw e;
   }
+  if (square.holds === null) return { status: "malformed", issues: square.issues };
   if (!square.holds) return { status: "fails", address, counterexample: square.counterexample };
-  return { status: "holds", address, certificate: { ...cert, address }, checkerVersion: CHECKER_VERSION };
+  return { status: "holds", address, certificate: { ...cert, address }, checkerVersion: CHECKER_VERSION, equation: square.equation };
 }
