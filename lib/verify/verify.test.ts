@@ -82,9 +82,11 @@ describe("verifyCertificate: squares that fail, with counterexamples re-checked 
     });
     const result = verifyCertificate(bad);
     expect(result.status === "fails" && result.counterexample).toEqual({ kind: "not-lumpable", block: 0, states: [0, 1], targetBlock: 0, sums: ["3/4", "1/2"] });
-    // Independent re-check with fraction.js: P[R][R] + P[R][N] and P[N][R] + P[N][N].
-    expect(new Fraction("1/2").add("1/4").toFraction()).toBe("3/4");
-    expect(new Fraction("1/2").add("0").toFraction()).toBe("1/2");
+    // Independent re-check with fraction.js from the chain's own entries: block 0 = {R, N} under [0, 0, 1].
+    if (result.status !== "fails" || result.counterexample.kind !== "not-lumpable") throw new Error("expected not-lumpable");
+    const { states, targetBlock, sums } = result.counterexample;
+    const into = (i: number) => oz.matrix[i].reduce((s, x, j) => ([0, 0, 1][j] === targetBlock ? s.add(new Fraction(x)) : s), new Fraction(0)).toFraction();
+    expect(states.map(into)).toEqual(sums);
   });
 
   it("names the entry of a wrong lumped matrix and of a wrong matrix power", () => {
