@@ -147,6 +147,8 @@ describe("duplicate member names and deep nesting are refused before parsing (I-
       expect(r).toMatchObject({ ok: false, verdict: { status: "malformed", issues: [{ message: expect.stringMatching(/deeper than 64 levels.*maxNesting/) }] } });
     }
     expect(readCertificateText("[".repeat(64) + "]".repeat(64)).ok).toBe(true);
+    expect(readCertificateText("null")).toEqual({ ok: true, value: null });
+    expect(verifyCertificate("null").status).toBe("malformed");
     let deep: unknown = 1;
     for (let i = 0; i < 100; i++) deep = { kind: "iterate", base: deep, steps: 2 };
     expect(verifyCertificate({ ...base, map: { kind: "iterate", steps: 1 }, source: deep, target: deep })).toMatchObject({ status: "malformed", issues: [{ message: expect.stringMatching(/maxNesting/) }] });

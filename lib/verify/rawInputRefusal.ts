@@ -18,6 +18,7 @@ export function rawInputRefusal(value: unknown, limits: Limits): Refusal | null 
   const stack: Node[] = [[value, 1, ""]];
   while (stack.length > 0) {
     const [node, depth, path] = stack.pop() as Node;
+    if (typeof node !== "object" || node === null) continue;
     if (depth > all.maxNesting) return malformed(path, `nests deeper than ${all.maxNesting} levels of arrays and objects (maxNesting)`);
     if (Array.isArray(node)) {
       node.forEach((x, i) => typeof x === "object" && x !== null && stack.push([x, depth + 1, join(path, i)]));
