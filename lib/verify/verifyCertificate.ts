@@ -8,8 +8,8 @@ import { rawInputRefusal } from "./rawInputRefusal";
 import { readCertificateText } from "./readCertificateText";
 import { structureIssues } from "./structureIssues";
 
-/** Bumped whenever the checker's behaviour changes; recorded with every verification. */
-export const CHECKER_VERSION = "squarely-checker/1";
+/** Bumped whenever the checker's behaviour changes; recorded with every verification. 2: target labels checked, targets by value, wrong encodings malformed, bounds before any work. */
+export const CHECKER_VERSION = "squarely-checker/2";
 
 export type VerifyResult =
   | { status: "holds"; address: string; certificate: Certificate; checkerVersion: string; equation: Equation }
