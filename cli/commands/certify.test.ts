@@ -67,4 +67,19 @@ describe("cli certify", () => {
       expect(r.stderr).not.toMatch(/\n\s+at /);
     }
   });
+
+  it("bounds the digits of every matrix entry on the file's text (maxEntryDigits), and the predicted cost before any power", async () => {
+    const dir = tempDir();
+    try {
+      const wide = dir.file("wide.csv", `1/${"3".repeat(1500)},${"3".repeat(1500) + "-1"}\n1,0\n`.replace(`${"3".repeat(1500)}-1`, `${"3".repeat(1499)}2/${"3".repeat(1500)}`));
+      const r = await runCli(run, ["decimation", "--matrix", wide, "--steps", "2"]);
+      expect(r.code).toBe(2);
+      expect(r.stderr).toMatch(/line 1, column 1: has 1500 digits; the bound is 1000 \(maxEntryDigits\)/);
+      const slow = await runCli(run, ["decimation", "--matrix", join(FIXTURES, "weather.csv"), "--steps", "4096", "--max-chain-cost", "1000"]);
+      expect(slow.code).toBe(2);
+      expect(slow.stderr).toMatch(/too large: maxChainCost is 1000/);
+    } finally {
+      dir.cleanup();
+    }
+  });
 });

@@ -17,7 +17,7 @@ import {
   type RuleInput,
 } from "@/lib/certificate";
 import { ecaTable } from "@/lib/ca";
-import { exceededLimit, type Limits } from "@/lib/verify";
+import { exceededLimit, fullLimits, type Limits } from "@/lib/verify";
 
 const USAGE = `usage: npm run --silent cli -- certify <map> [options]
   projection --rule R | --table FILE  --block N [--steps T] --projection BITS
@@ -87,14 +87,14 @@ async function build(map: string, values: Values, limits: Limits): Promise<Built
       return certifyIterate({ ...rule, steps });
     }
     case "lumping": {
-      const chain = await chainInput(values);
+      const chain = await chainInput(values, limits);
       const partition = integerList(requireString(values, "partition"), "partition");
       const steps = integerOption(values, "steps", 1);
       precheck({ kind: "lumping", partition, steps }, chain, limits);
       return certifyLumping({ chain, partition, steps });
     }
     case "decimation": {
-      const chain = await chainInput(values);
+      const chain = await chainInput(values, limits);
       const steps = integerOption(values, "steps");
       precheck({ kind: "decimation", steps }, chain, limits);
       return certifyDecimation({ chain, steps });
@@ -122,8 +122,9 @@ function caModel(rule: RuleInput): Model {
   return rule.rule !== undefined ? { kind: "eca", rule: rule.rule } : canonicalModel({ kind: "ca", k: rule.table!.k, r: rule.table!.r, table: Array.from(rule.table!.table) });
 }
 
-async function chainInput(values: Values): Promise<Model> {
-  const matrix = formatMatrix(await readMatrixFile(requireString(values, "matrix")));
+/** The chain of --matrix, every entry's digits bounded on the file's text before the number is read. */
+async function chainInput(values: Values, limits: Limits): Promise<Model> {
+  const matrix = formatMatrix(await readMatrixFile(requireString(values, "matrix"), { maxEntryDigits: fullLimits(limits).maxEntryDigits }));
   const labels = typeof values.labels === "string" ? values.labels.split(",").map((s) => s.trim()) : undefined;
   return canonicalModel({ kind: "markov", labels, matrix });
 }

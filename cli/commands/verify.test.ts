@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { execFileSync } from "node:child_process";
 import { run as certify } from "./certify";
-import { run } from "./verify";
+import { EXIT, run } from "./verify";
 import { runCli, tempDir } from "@/cli/shared/testSupport";
 
 async function certificate(args: string[]): Promise<string> {
@@ -97,5 +97,37 @@ describe("cli verify", () => {
     } finally {
       dir.cleanup();
     }
+  });
+
+  it("stops at --deadline with exit 4 and a stopped status when the check has not finished (a 50-state chain decimated 1024 times)", async () => {
+    const dir = tempDir();
+    try {
+      // Row i spreads its mass over states i+1 … i+q (q = 2 + i mod 11): P^1024 has denominators of thousands of digits, several seconds of work.
+      const n = 50;
+      const matrix = Array.from({ length: n }, (_, i) => {
+        const q = 2 + (i % 11);
+        return Array.from({ length: n }, (_, j) => ((j - i - 1 + n) % n < q ? `1/${q}` : "0"));
+      });
+      const chain = { kind: "markov", matrix };
+      const path = dir.file("slow.json", JSON.stringify({ format: "squarely-certificate", version: 1, map: { kind: "decimation", steps: 1024 }, source: chain, target: chain }));
+      const r = await runCli(run, [path, "--deadline", "1500", "--max-chain-cost", "100000000000000"]);
+      expect(r.code).toBe(EXIT.stopped);
+      expect(r.code).toBe(4);
+      expect(JSON.parse(r.stdout)).toEqual({ status: "stopped", deadlineMs: 1500 });
+      expect(r.stderr).toMatch(/stopped: no verdict within 1500 ms \(--deadline\)/);
+      const quick = dir.file("c.json", await certificate(["projection", "--rule", "105", "--block", "2", "--projection", "0110"]));
+      const ok = await runCli(run, [quick, "--deadline", "120000"]);
+      expect(ok.code).toBe(0);
+      expect(ok.stdout.trim()).toBe(JSON.parse(await certificate(["projection", "--rule", "105", "--block", "2", "--projection", "0110"])).address);
+    } finally {
+      dir.cleanup();
+    }
+  }, 180_000);
+
+  it("documents --deadline and every exit code in --help", async () => {
+    const r = await runCli(run, ["--help"]);
+    expect(r.code).toBe(0);
+    for (const line of [/--deadline MS/, /exit 0 +the square holds/, /exit 1 +the square fails/, /exit 2 +malformed, or beyond a limit/, /exit 4 +stopped/, /--max-chain-cost/]) expect(r.stdout).toMatch(line);
+    expect((await runCli(run, ["x.json", "--deadline", "soon"])).stderr).toMatch(/--deadline must be a non-negative integer/);
   });
 });

@@ -8,6 +8,11 @@ const FLAGS: Record<keyof Limits, string> = {
   maxWindows: "max-windows",
   maxDigits: "max-digits",
   maxSteps: "max-steps",
+  maxEntryDigits: "max-entry-digits",
+  maxChainCost: "max-chain-cost",
+  maxCaCost: "max-ca-cost",
+  maxTextLength: "max-text-length",
+  maxNesting: "max-nesting",
 };
 
 /** --max-block N, --max-windows N, … override DEFAULT_LIMITS. */

@@ -1,5 +1,5 @@
 import { readFile } from "node:fs/promises";
-import { parseCsvMatrix, parseMatrixMarket, type Matrix } from "@/lib/markov";
+import { parseCsvMatrix, parseMatrixMarket, type Matrix, type ParseMatrixOptions } from "@/lib/markov";
 import { CliError, describeError } from "./cliError";
 
 const MAX_FILE_BYTES = 64 * 1024 * 1024;
@@ -25,10 +25,10 @@ export async function readJsonFile(path: string): Promise<unknown> {
 }
 
 /** A transition matrix from a Matrix Market file (".mtx", or a %%MatrixMarket header) or from CSV of rationals. */
-export async function readMatrixFile(path: string): Promise<Matrix> {
+export async function readMatrixFile(path: string, options: ParseMatrixOptions = {}): Promise<Matrix> {
   const text = await readTextFile(path);
   try {
-    return path.endsWith(".mtx") || text.startsWith("%%MatrixMarket") ? parseMatrixMarket(text) : parseCsvMatrix(text);
+    return path.endsWith(".mtx") || text.startsWith("%%MatrixMarket") ? parseMatrixMarket(text, options) : parseCsvMatrix(text, options);
   } catch (e) {
     throw new CliError(`${path}: ${describeError(e)}`);
   }

@@ -3,6 +3,7 @@ import { checkLumping, formatMatrix, matrixPower, type LumpingCounterexample, ty
 import { canonicalModel, modelMatrix, ruleTableModel, type Model } from "@/lib/models";
 import { formatRational } from "@/lib/rational";
 import { sealCertificate } from "./certificateAddress";
+import { blockLabels, chainLabels } from "./chainLabels";
 import { CERTIFICATE_FORMAT, CERTIFICATE_VERSION, type Certificate, type CertificateMap } from "./schema";
 
 export type Built<C> = { ok: true; certificate: Certificate } | { ok: false; counterexample: C };
@@ -43,10 +44,6 @@ function chainModel(chain: unknown): Model {
   return model;
 }
 
-function labelsOf(model: Model): string[] {
-  return model.kind === "markov" ? model.labels : model.kind === "decimated" ? labelsOf(model.base) : [];
-}
-
 /** Strong lumping of a chain (of its s-step decimation when steps = s > 1) by a partition; the lumped chain is derived. */
 export function certifyLumping(input: { chain: unknown; partition: number[]; steps?: number }): Built<LumpingCounterexample> {
   const source = chainModel(input.chain);
@@ -54,9 +51,7 @@ export function certifyLumping(input: { chain: unknown; partition: number[]; ste
   const p: Matrix = matrixPower(modelMatrix(source), steps);
   const check = checkLumping(p, input.partition);
   if (!check.ok) return check;
-  const labels = labelsOf(source);
-  const blockLabels = check.lumped.map((_, b) => `{${labels.filter((_, i) => check.partition[i] === b).join(",")}}`);
-  const target: Model = { kind: "markov", labels: blockLabels, matrix: formatMatrix(check.lumped) };
+  const target: Model = { kind: "markov", labels: blockLabels(chainLabels(source), check.partition), matrix: formatMatrix(check.lumped) };
   return { ok: true, certificate: issue({ kind: "lumping", partition: check.partition, steps }, source, target) };
 }
 
@@ -64,7 +59,7 @@ export function certifyLumping(input: { chain: unknown; partition: number[]; ste
 export function certifyDecimation(input: { chain: unknown; steps: number }): Built<never> {
   const source = chainModel(input.chain);
   const power = matrixPower(modelMatrix(source), input.steps);
-  const target: Model = { kind: "markov", labels: labelsOf(source), matrix: power.map((row) => row.map(formatRational)) };
+  const target: Model = { kind: "markov", labels: chainLabels(source), matrix: power.map((row) => row.map(formatRational)) };
   return { ok: true, certificate: issue({ kind: "decimation", steps: input.steps }, source, target) };
 }
 

@@ -96,6 +96,19 @@ describe("certificate identity (RFC 8785 + SHA-256)", () => {
     expect(certificateAddress(respelled)).toBe(c.address);
   });
 
+  it("renumbers the partition by first appearance (FORMAT.md, Identity): [1,0,1] and [0,1,0] are one certificate with one address", () => {
+    const spelled = (partition: number[]) => ({
+      format: "squarely-certificate",
+      version: 1,
+      map: { kind: "lumping", partition },
+      source: oz,
+      target: { kind: "markov", labels: ["{R,S}", "{N}"], matrix: [["3/4", "1/4"], ["1", "0"]] },
+    });
+    expect(canonicalCertificate(spelled([1, 0, 1])).map).toEqual({ kind: "lumping", partition: [0, 1, 0], steps: 1 });
+    expect(certificateAddress(spelled([1, 0, 1]))).toBe(certificateAddress(spelled([0, 1, 0])));
+    expect(certificateAddress(spelled([7, 3, 7]))).toBe(cert(certifyLumping({ chain: oz, partition: [0, 1, 0] })).address);
+  });
+
   it("is written as canonical JSON with no insignificant whitespace", () => {
     const text = certificateText(cert(certifyProjection({ rule: 146, block: 3, projection: allOnes(3) })));
     expect(text).toBe(canonicalize(JSON.parse(text)));

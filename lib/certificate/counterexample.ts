@@ -11,5 +11,7 @@ export type Counterexample =
   | { kind: "matrix-entry-mismatch"; row: number; column: number; claimed: string; actual: string }
   /** Claimed rule table differs from the recomputed one at a neighbourhood (its cells leftmost first). */
   | { kind: "table-entry-mismatch"; neighbourhood: number; cells: string; claimed: number; actual: number }
+  /** A target chain's state carries another label than FORMAT.md requires (the source's, or the block's). */
+  | { kind: "label-mismatch"; state: number; claimed: string; expected: string }
   /** The claimed target is not even of the right kind or shape (alphabet, radius, number of states). */
   | { kind: "target-mismatch"; message: string; expected: string; claimed: string };

@@ -8,3 +8,4 @@ export { certifyBlocking, certifyDecimation, certifyIterate, certifyLumping, cer
 export type { Built, RuleInput } from "./builders";
 export { certificateSummary } from "./certificateSummary";
 export type { CertificateSummary } from "./certificateSummary";
+export { blockLabels, chainLabels } from "./chainLabels";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { certifyDecimation, certifyLumping, certifyProjection, type Certificate } from "@/lib/certificate";
+import { certifyBlocking, certifyDecimation, certifyIterate, certifyLumping, certifyProjection, type Certificate } from "@/lib/certificate";
 import { allOnes, parity } from "@/lib/ca/testSupport";
 import { liftedChain } from "@/lib/markov/testSupport";
 import { formatMatrix } from "@/lib/markov";
@@ -84,5 +84,85 @@ describe("composeChain: pasting squares (DOMAIN.md §3)", () => {
     const before = structuredClone([p105, p150]);
     composeChain([p105, p150]);
     expect([p105, p150]).toEqual(before);
+  });
+});
+
+/** Independent of composePair: a 4-cell block as a bit string, each half projected by p, the pair by q (left half first). */
+function pastedByHand(p: string, q: string): number[] {
+  return Array.from({ length: 16 }, (_, s) => {
+    const cells = s.toString(2).padStart(4, "0");
+    const left = p[parseInt(cells.slice(0, 2), 2)];
+    const right = p[parseInt(cells.slice(2), 2)];
+    return Number(q[parseInt(left + right, 2)]);
+  });
+}
+
+describe("composeChain: every pair of kinds whose composite is a known map (FORMAT.md, Pasting)", () => {
+  it("pastes ECA 10 → 187 at block 2 by 1100 and 187 → 170 at block 2 by 0010 into one block-4 projection, left sub-block first", () => {
+    const first = cert(certifyProjection({ rule: 10, block: 2, projection: "1100" }));
+    expect(first.target).toEqual({ kind: "eca", rule: 187 });
+    const second = cert(certifyProjection({ rule: 187, block: 2, projection: "0010" }));
+    expect(second.target).toEqual({ kind: "eca", rule: 170 });
+    const r = composite([first, second]);
+    expect(r.composite.map).toEqual({ kind: "projection", block: 4, steps: 4, projection: pastedByHand("1100", "0010") });
+    expect(r.composite.target).toEqual({ kind: "eca", rule: 170 });
+    expect(r.verification).toBe("links+composite");
+  });
+
+  it("pastes a projection whose steps differ from its block with an iterate (ECA 204, block 3, 1 step, then 3 steps): the radius-3 end is narrowed to radius 1", () => {
+    const project = cert(certifyProjection({ rule: 204, block: 3, steps: 1, projection: parity(3) }));
+    expect(project.target).toEqual({ kind: "eca", rule: 204 });
+    const r = composite([project, cert(certifyIterate({ rule: 204, steps: 3 }))]);
+    expect(r.composite.map).toEqual({ kind: "projection", block: 3, steps: 3, projection: parity(3) });
+    expect(r.composite.target).toEqual({ kind: "eca", rule: 204 });
+    expect(r.verification).toBe("links+composite");
+  });
+
+  it("pastes blocking ECA 105 at block 2 with the parity projection of its supercell onto ECA 150 into the block-2 projection of 105", () => {
+    const block = cert(certifyBlocking({ rule: 105, block: 2 }));
+    const project = { format: "squarely-certificate", version: 1, map: { kind: "projection", block: 1, steps: 1, projection: parity(2) }, source: block.target, target: { kind: "eca", rule: 150 } } as Certificate;
+    const r = composite([block, project]);
+    expect(r.composite.map).toEqual({ kind: "projection", block: 2, steps: 2, projection: parity(2) });
+    expect(r.composite.target).toEqual({ kind: "eca", rule: 150 });
+    expect(r.verification).toBe("links+composite");
+  });
+
+  it("pastes iterate then blocking, blocking then blocking, and a projection then a blocking; each composite verifies directly", () => {
+    const it2 = cert(certifyIterate({ rule: 90, steps: 2 }));
+    const r1 = composite([it2, cert(certifyBlocking({ table: { k: 2, r: 2, table: it2.target.kind === "ca" ? it2.target.table : [] }, block: 2, steps: 1 }))]);
+    expect(r1.composite.map).toEqual({ kind: "blocking", block: 2, steps: 2 });
+    expect(r1.verification).toBe("links+composite");
+    const b2 = cert(certifyBlocking({ rule: 30, block: 2 }));
+    const bb = { format: "squarely-certificate", version: 1, map: { kind: "blocking", block: 2, steps: 1 }, source: b2.target, target: { kind: "supercell", base: b2.target, block: 2, steps: 1 } } as Certificate;
+    const r2 = composite([b2, bb]);
+    expect(r2.composite.map).toEqual({ kind: "blocking", block: 4, steps: 2 });
+    expect(r2.verification).toBe("links+composite");
+    const pb = { format: "squarely-certificate", version: 1, map: { kind: "blocking", block: 2, steps: 2 }, source: { kind: "eca", rule: 150 }, target: { kind: "supercell", base: { kind: "eca", rule: 150 }, block: 2, steps: 2 } } as Certificate;
+    const r3 = composite([p105, pb]);
+    // Block of 4 cells → supercell symbol (parity of the left pair, parity of the right pair) read as two binary digits.
+    const byHand = Array.from({ length: 16 }, (_, s) => {
+      const bits = s.toString(2).padStart(4, "0");
+      return 2 * ((Number(bits[0]) + Number(bits[1])) % 2) + ((Number(bits[2]) + Number(bits[3])) % 2);
+    });
+    expect(r3.composite.map).toEqual({ kind: "projection", block: 4, steps: 4, projection: byHand });
+    expect(r3.verification).toBe("links+composite");
+  });
+
+  it("composes two lumpings: a 4-state chain by [0,0,1,2], then by [0,1,1], is the lumping by [0,0,1,1] onto [[1/2,1/2],[1/3,2/3]]", () => {
+    // Built by hand: P lumps onto Q by {a,b}|{c}|{d}; Q lumps onto R by {q0}|{q1,q2}.
+    const P = { kind: "markov", labels: ["a", "b", "c", "d"], matrix: [["1/4", "1/4", "1/4", "1/4"], ["1/2", "0", "1/4", "1/4"], ["1/6", "1/6", "1/3", "1/3"], ["0", "1/3", "1/2", "1/6"]] };
+    const first = cert(certifyLumping({ chain: P, partition: [0, 0, 1, 2] }));
+    expect(first.target.kind === "markov" && first.target.matrix).toEqual([["1/2", "1/4", "1/4"], ["1/3", "1/3", "1/3"], ["1/3", "1/2", "1/6"]]);
+    const second = cert(certifyLumping({ chain: first.target, partition: [0, 1, 1] }));
+    const r = composite([first, second]);
+    expect(r.composite.map).toEqual({ kind: "lumping", partition: [0, 0, 1, 1], steps: 1 });
+    expect(r.composite.target).toEqual({ kind: "markov", labels: ["{a,b}", "{c,d}"], matrix: [["1/2", "1/2"], ["1/3", "2/3"]] });
+    expect(r.verification).toBe("links+composite");
+  });
+
+  it("still refuses a chain that mixes a Markov map with a CA map", () => {
+    const oz = { kind: "markov", labels: ["R", "N", "S"], matrix: [["1/2", "1/4", "1/4"], ["1/2", "0", "1/2"], ["1/4", "1/4", "1/2"]] };
+    const r = composeChain([cert(certifyDecimation({ chain: oz, steps: 2 })), p105]);
+    expect(r.ok).toBe(false);
   });
 });

@@ -46,6 +46,10 @@ describe("buildEcaAtlas", () => {
       const seven = buildEcaAtlas({ kind: "partitions", maxBlock: 7 });
       if (six.kind !== "partitions" || seven.kind !== "partitions") throw new Error("kind");
       expect(noneSet(seven.rows).classes).toHaveLength(4);
+      // The published four, by class representative: rules 30, 45, 106 and 154 with their reflections and
+      // complements (as Israeli & Goldenfeld, PRE 73, 026203, 2006, also report; rule list recalled from memory).
+      expect(noneSet(seven.rows).classes).toEqual([30, 45, 106, 154]);
+      expect(noneSet(seven.rows).rules).toEqual([30, 45, 75, 86, 89, 101, 106, 120, 135, 149, 154, 166, 169, 180, 210, 225]);
       expect(noneSet(seven.rows)).toEqual(noneSet(six.rows));
       // every class has the same smallest block for all its members, and every reported congruence is certified
       for (const row of seven.rows) {

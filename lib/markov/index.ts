@@ -7,3 +7,4 @@ export { canonicalPartition, blockCount } from "./canonicalPartition";
 export { checkLumping } from "./checkLumping";
 export type { LumpingCheck, LumpingCounterexample } from "./checkLumping";
 export { parseCsvMatrix, parseMatrixMarket } from "./parseMatrix";
+export type { ParseMatrixOptions } from "./parseMatrix";

@@ -17,7 +17,7 @@ import {
   stochasticIssue,
   type Matrix,
 } from "./index";
-import { liftedChain, stochasticMatrix } from "./testSupport";
+import { largePrimeMatrix, liftedChain, stochasticMatrix } from "./testSupport";
 
 const m = (rows: string[][]): Matrix => rows.map((r) => r.map(parseRational));
 /** Grinstead & Snell, Introduction to Probability, Example 11.1 (Land of Oz weather: Rain, Nice, Snow). */
@@ -74,9 +74,10 @@ describe("Grinstead & Snell Example 11.1 weather chain", () => {
 });
 
 describe("matrixPower", () => {
-  it("agrees with repeated multiplication in fraction.js (general-purpose reference library)", () => {
+  it("agrees with repeated multiplication in fraction.js (general-purpose reference library), small and large prime denominators", () => {
+    const chains = fc.integer({ min: 1, max: 4 }).chain((n) => fc.oneof(stochasticMatrix(n), largePrimeMatrix(n)));
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 4 }).chain(stochasticMatrix), fc.integer({ min: 0, max: 9 }), (p, k) => {
+      fc.property(chains, fc.integer({ min: 0, max: 9 }), (p, k) => {
         const F = p.map((row) => row.map((x) => new Fraction(x.num, x.den)));
         let acc = F.map((row, i) => row.map((_, j) => new Fraction(i === j ? 1 : 0)));
         for (let s = 0; s < k; s++) acc = acc.map((row) => F[0].map((_, j) => row.reduce((sum, x, l) => sum.add(x.mul(F[l][j])), new Fraction(0))));
@@ -96,6 +97,20 @@ describe("matrixPower", () => {
       }),
       { numRuns: 40 },
     );
+  });
+
+  it("reduces every entry: denominators 100003 and 100019 (primes beyond its trial division) give P² exactly as fraction.js does", () => {
+    const p = m([
+      ["1/100003", "100002/100003"],
+      ["7/100019", "100012/100019"],
+    ]);
+    const F = p.map((row) => row.map((x) => new Fraction(x.num, x.den)));
+    const squared = F.map((row) => F[0].map((_, j) => row[0].mul(F[0][j]).add(row[1].mul(F[1][j])).toFraction()));
+    // Entry (0, 0) by hand: 1/100003² + (100002/100003)(7/100019) = (100019 + 7·100002·100003)/(100003²·100019).
+    expect(squared[0][0]).toBe(new Fraction(100019n + 7n * 100002n * 100003n, 100003n * 100003n * 100019n).toFraction());
+    expect(formatMatrix(matrixPower(p, 2))).toEqual(squared);
+    const cubed = F.map((row) => F[0].map((_, j) => row.reduce((sum, x, l) => sum.add(x.mul(new Fraction(squared[l][j]))), new Fraction(0)).toFraction()));
+    expect(formatMatrix(matrixPower(p, 3))).toEqual(cubed);
   });
 
   it("gives the identity for k = 0 and refuses negative or fractional exponents", () => {
@@ -134,12 +149,21 @@ describe("strong lumping (Kemeny & Snell §6.3)", () => {
     );
   });
 
-  it("property: a failing lumping names two states of one block whose sums into the target block differ", () => {
+  it("property: an accepted lumping is lumpable by an independent fraction.js check, with that lumped matrix; a refused one names two states whose sums differ", () => {
+    const chains = fc.integer({ min: 2, max: 5 }).chain((n) => fc.oneof(stochasticMatrix(n), largePrimeMatrix(n)));
+    let accepted = 0;
     fc.assert(
-      fc.property(fc.integer({ min: 2, max: 5 }).chain(stochasticMatrix), fc.array(fc.integer({ min: 0, max: 2 }), { minLength: 5, maxLength: 5 }), (p, raw) => {
+      fc.property(chains, fc.array(fc.integer({ min: 0, max: 2 }), { minLength: 5, maxLength: 5 }), (p, raw) => {
         const partition = canonicalPartition(raw.slice(0, p.length));
         const check = checkLumping(p, partition);
-        if (check.ok) return;
+        const reference = lumpedByFractionJs(p, partition);
+        if (check.ok) {
+          accepted++;
+          expect(reference).not.toBeNull();
+          expect(formatMatrix(check.lumped)).toEqual(reference);
+          return;
+        }
+        expect(reference).toBeNull();
         const { block, states, targetBlock, sums } = check.counterexample;
         const sumInto = (i: number): Rational =>
           p[i].reduce((s, x, j) => (partition[j] === targetBlock ? { num: s.num * x.den + x.num * s.den, den: s.den * x.den } : s), { num: 0n, den: 1n });
@@ -149,8 +173,28 @@ describe("strong lumping (Kemeny & Snell §6.3)", () => {
         expect(formatRational(rational(sumInto(states[1]).num, sumInto(states[1]).den))).toBe(sums[1]);
         expect(sums[0]).not.toBe(sums[1]);
       }),
-      { numRuns: 80 },
+      { numRuns: 120 },
     );
+    expect(accepted).toBeGreaterThan(0);
+  });
+
+  it("property: a lift of a chain with large prime denominators (10^9+7, 998244353, …) lumps onto it", () => {
+    fc.assert(
+      fc.property(liftedChain(largePrimeMatrix), ({ q, p, partition }) => {
+        const check = checkLumping(p, partition);
+        expect(check.ok && formatMatrix(check.lumped)).toEqual(formatMatrix(q));
+      }),
+      { numRuns: 40 },
+    );
+  });
+
+  it("checks the last state too: the weather chain with S = (1/2, 1/2, 0) does not lump by {R,S}|{N}, and only state 2 shows it", () => {
+    const p = m([
+      ["1/2", "1/4", "1/4"],
+      ["1/2", "0", "1/2"],
+      ["1/2", "1/2", "0"],
+    ]);
+    expect(checkLumping(p, [0, 1, 0])).toEqual({ ok: false, counterexample: { kind: "not-lumpable", block: 0, states: [0, 2], targetBlock: 0, sums: ["3/4", "1/2"] } });
   });
 
   it("numbers blocks in order of first appearance", () => {
@@ -209,3 +253,16 @@ describe("matrixProduct", () => {
     expect(matricesEqual(matrixProduct(OZ, OZ), matrixPower(OZ, 2))).toBe(true);
   });
 });
+
+/** Strong lumpability checked with fraction.js alone (Kemeny & Snell §6.3): the lumped matrix as strings, or null. */
+function lumpedByFractionJs(p: Matrix, partition: number[]): string[][] | null {
+  const blocks = Math.max(...partition) + 1;
+  const sums = p.map((row) => Array.from({ length: blocks }, (_, J) => row.reduce((s, x, j) => (partition[j] === J ? s.add(new Fraction(x.num, x.den)) : s), new Fraction(0))));
+  const q: string[][] = [];
+  for (let I = 0; I < blocks; I++) {
+    const members = partition.flatMap((b, i) => (b === I ? [i] : []));
+    for (const i of members) for (let J = 0; J < blocks; J++) if (!sums[i][J].equals(sums[members[0]][J])) return null;
+    q.push(sums[members[0]].map((x) => x.toFraction()));
+  }
+  return q;
+}

@@ -1,7 +1,16 @@
-import { ZERO, neg, parseRational, RationalSyntaxError, type Rational } from "@/lib/rational";
+import { ZERO, neg, parseRational, rationalDigits, RationalSyntaxError, type Rational } from "@/lib/rational";
 import { MatrixInputError, type Matrix } from "./matrix";
 
-function entry(text: string, where: string): Rational {
+export type ParseMatrixOptions = {
+  /** Digits of any numerator or denominator, counted on the text before the number is read. @default Infinity */
+  maxEntryDigits?: number;
+};
+
+function entry(text: string, where: string, options: ParseMatrixOptions = {}): Rational {
+  const digits = rationalDigits(text);
+  const bound = options.maxEntryDigits ?? Infinity;
+  if (digits && Math.max(digits.num, digits.den) > bound)
+    throw new MatrixInputError(where, `has ${Math.max(digits.num, digits.den)} digits; the bound is ${bound} (maxEntryDigits)`);
   try {
     return parseRational(text);
   } catch (e) {
@@ -11,12 +20,12 @@ function entry(text: string, where: string): Rational {
 }
 
 /** Dense CSV of rationals ("1/2", "0.25", "1"); blank lines and lines starting with # are skipped. */
-export function parseCsvMatrix(text: string): Matrix {
+export function parseCsvMatrix(text: string, options: ParseMatrixOptions = {}): Matrix {
   const rows: Matrix = [];
   text.split(/\r?\n/).forEach((line, index) => {
     const trimmed = line.trim();
     if (trimmed === "" || trimmed.startsWith("#")) return;
-    rows.push(trimmed.split(",").map((cell, col) => entry(cell, `line ${index + 1}, column ${col + 1}`)));
+    rows.push(trimmed.split(",").map((cell, col) => entry(cell, `line ${index + 1}, column ${col + 1}`, options)));
   });
   if (rows.length === 0) throw new MatrixInputError("matrix", "no rows");
   const n = rows[0].length;
@@ -33,7 +42,7 @@ const HEADER = /^%%MatrixMarket\s+matrix\s+(coordinate|array)\s+(real|integer|pa
  * a %%MatrixMarket header, % comments, a size line, then 1-based "i j value" entries (coordinate) or values in
  * column-major order (array). Values are converted exactly; as an extension an entry may also be written p/q.
  */
-export function parseMatrixMarket(text: string): Matrix {
+export function parseMatrixMarket(text: string, options: ParseMatrixOptions = {}): Matrix {
   const lines = text.split(/\r?\n/);
   const header = HEADER.exec(lines[0]?.trim() ?? "");
   if (!header) throw new MatrixInputError("line 1", "expected '%%MatrixMarket matrix coordinate|array real|integer|pattern general|symmetric|skew-symmetric'");
@@ -62,7 +71,7 @@ export function parseMatrixMarket(text: string): Matrix {
     for (let j = 0; j < cols; j++)
       for (let i = symmetry === "general" ? 0 : symmetry === "symmetric" ? j : j + 1; i < rows; i++) cells.push([i, j]);
     if (entries.length !== cells.length) throw new MatrixInputError("matrix", `expected ${cells.length} values, got ${entries.length}`);
-    entries.forEach(({ words, where }, index) => set(cells[index][0], cells[index][1], entry(words[0], where)));
+    entries.forEach(({ words, where }, index) => set(cells[index][0], cells[index][1], entry(words[0], where, options)));
     return m;
   }
   if (entries.length !== dims[2]) throw new MatrixInputError(size.where, `announces ${dims[2]} entries, the file has ${entries.length}`);
@@ -71,7 +80,7 @@ export function parseMatrixMarket(text: string): Matrix {
     const j = Number(words[1]) - 1;
     if (!(Number.isSafeInteger(i) && Number.isSafeInteger(j) && i >= 0 && j >= 0 && i < rows && j < cols))
       throw new MatrixInputError(where, `index (${words[0]}, ${words[1]}) is outside a ${rows}×${cols} matrix`);
-    const value = field === "pattern" ? { num: 1n, den: 1n } : words[2] === undefined ? null : entry(words[2], where);
+    const value = field === "pattern" ? { num: 1n, den: 1n } : words[2] === undefined ? null : entry(words[2], where, options);
     if (value === null) throw new MatrixInputError(where, "missing value");
     set(i, j, value);
   }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { checkProjection, ecaRuleOf, ecaTable } from "@/lib/ca";
+import { checkProjection, ecaRuleOf, ecaTable, supercellTable } from "@/lib/ca";
+import { ruleTableModel } from "@/lib/models";
 import { certifyIterate, certifyProjection, type Certificate } from "@/lib/certificate";
 import { allOnes, parity } from "@/lib/ca/testSupport";
 import { verifyCertificate } from "@/lib/verify";
@@ -74,5 +75,31 @@ describe("reflected and complemented certificates, re-verified by the checker", 
   it("refuses a Markov certificate", () => {
     const c = { format: "squarely-certificate", version: 1, map: { kind: "decimation", steps: 2 }, source: { kind: "markov", labels: ["a"], matrix: [["1"]] }, target: { kind: "markov", labels: ["a"], matrix: [["1"]] } } as Certificate;
     expect(() => reflectCertificate(c)).toThrow(/cellular automata/);
+  });
+});
+
+describe("symmetry images of projections from a supercell source", () => {
+  it("reflect the cells inside each supercell symbol as well as the symbols' order: every image of a holding certificate holds", { timeout: 120_000 }, () => {
+    let asymmetric = 0;
+    // Every ECA (rule 12, "0100", was refused before), block 1 of its block-2 supercell: 4 symbols of two cells onto 2.
+    for (let rule = 0; rule < 256; rule++)
+      for (let code = 1; code < 15; code++) {
+        const projection = [0, 1, 2, 3].map((s) => (code >> s) & 1);
+        const check = checkProjection(supercellTable(ecaTable(rule), 2, 2), 1, projection, { steps: 1 });
+        if (!check.ok) continue;
+        const c = {
+          format: "squarely-certificate",
+          version: 1,
+          map: { kind: "projection", block: 1, steps: 1, projection },
+          source: { kind: "supercell", base: { kind: "eca", rule }, block: 2, steps: 2 },
+          target: ruleTableModel(check.coarse),
+        } as Certificate;
+        expect(verifyCertificate(c).status).toBe("holds");
+        // Cells "01" (symbol 1) and "10" (symbol 2) are each other's reflection.
+        if (projection[1] !== projection[2]) asymmetric++;
+        for (const image of [reflectCertificate(c), complementCertificate(c), reflectCertificate(complementCertificate(c))])
+          expect(verifyCertificate(image).status, `rule ${rule}, projection ${projection.join("")}`).toBe("holds");
+      }
+    expect(asymmetric).toBeGreaterThan(0);
   });
 });

@@ -17,6 +17,8 @@ export function structureIssues(cert: Certificate): Issue[] {
     const { k } = caShape(source);
     const states = k ** map.block;
     if (map.projection.length !== states) issues.push({ path: "map.projection", message: `has ${map.projection.length} entries; block ${map.block} over ${k} symbols has ${states} states` });
+    else if (map.projection.every((y) => y === 0))
+      issues.push({ path: "map.projection", message: "maps every block state to 0: a constant projection names one coarse symbol, and a coarse CA needs at least two (k ≥ 2); use every symbol 0..m-1 with m ≥ 2" });
   }
   return issues;
 }

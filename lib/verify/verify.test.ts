@@ -82,9 +82,11 @@ describe("verifyCertificate: squares that fail, with counterexamples re-checked 
     });
     const result = verifyCertificate(bad);
     expect(result.status === "fails" && result.counterexample).toEqual({ kind: "not-lumpable", block: 0, states: [0, 1], targetBlock: 0, sums: ["3/4", "1/2"] });
-    // Independent re-check with fraction.js: P[R][R] + P[R][N] and P[N][R] + P[N][N].
-    expect(new Fraction("1/2").add("1/4").toFraction()).toBe("3/4");
-    expect(new Fraction("1/2").add("0").toFraction()).toBe("1/2");
+    // Independent re-check with fraction.js from the chain's own entries: block 0 = {R, N} under [0, 0, 1].
+    if (result.status !== "fails" || result.counterexample.kind !== "not-lumpable") throw new Error("expected not-lumpable");
+    const { states, targetBlock, sums } = result.counterexample;
+    const into = (i: number) => oz.matrix[i].reduce((s, x, j) => ([0, 0, 1][j] === targetBlock ? s.add(new Fraction(x)) : s), new Fraction(0)).toFraction();
+    expect(states.map(into)).toEqual(sums);
   });
 
   it("names the entry of a wrong lumped matrix and of a wrong matrix power", () => {
@@ -98,7 +100,7 @@ describe("verifyCertificate: squares that fail, with counterexamples re-checked 
     expect(verifyCertificate(power)).toMatchObject({ status: "fails", counterexample: { kind: "matrix-entry-mismatch", row: 1, column: 0, claimed: "1/4", actual: "3/8" } });
   });
 
-  it("names the neighbourhood of a wrong iterate table and refuses a supercell target of the wrong block", () => {
+  it("names the neighbourhood of a wrong iterate table and calls a supercell target of the wrong block malformed, naming the expected encoding", () => {
     const iterate = edited(cert(certifyIterate({ rule: 110, steps: 2 })), (c) => {
       if (c.target.kind === "ca") c.target.table[5] ^= 1;
     });
@@ -106,12 +108,12 @@ describe("verifyCertificate: squares that fail, with counterexamples re-checked 
     const blocking = edited(cert(certifyBlocking({ rule: 110, block: 3 })), (c) => {
       if (c.target.kind === "supercell") c.target.block = 2;
     });
-    expect(verifyCertificate(blocking)).toMatchObject({ status: "fails", counterexample: { kind: "target-mismatch" } });
+    expect(verifyCertificate(blocking)).toMatchObject({ status: "malformed", issues: [{ path: "target", message: expect.stringMatching(/write the target with k=8, r=1/) }] });
   });
 
-  it("refuses a claimed coarse CA of the wrong alphabet or radius", () => {
+  it("calls a claimed coarse CA of the wrong alphabet or radius malformed, naming the encoding expected (k=2, r=1)", () => {
     const bad = edited(cert(certifyProjection({ rule: 105, block: 2, projection: parity(2) })), (c) => (c.target = { kind: "ca", k: 2, r: 2, table: new Array(32).fill(0) }));
-    expect(verifyCertificate(bad)).toMatchObject({ status: "fails", counterexample: { kind: "target-mismatch" } });
+    expect(verifyCertificate(bad)).toMatchObject({ status: "malformed", issues: [{ path: "target", message: expect.stringMatching(/write the target as a CA with k=2, r=1/) }] });
   });
 });
 

@@ -113,21 +113,31 @@ describe("the atlas as a theorist sees it", () => {
   it("shows a map's certificate, whose download is the stored JSON with the address it claims", async () => {
     const page = await signedIn("viewer");
     await page.goto(`${server.url}/atlas/maps/${mapIds["146-128"]}`);
+    // The expected certificate written out (146 → 128 at block 3, "all three ones", Israeli & Goldenfeld 2004),
+    // addressed independently of our code: RFC 8785 via the canonicalize package, SHA-256 via node:crypto.
+    const expected = {
+      format: "squarely-certificate",
+      version: 1,
+      map: { kind: "projection", block: 3, steps: 3, projection: [0, 0, 0, 0, 0, 0, 0, 1] },
+      source: { kind: "eca", rule: 146 },
+      target: { kind: "eca", rule: 128 },
+    };
+    const address = `sha256:${createHash("sha256").update(canonicalize(expected)!).digest("hex")}`;
     const [cert] = await server.db.select().from(certificates).innerJoin(maps, eq(maps.certificateAddress, certificates.address)).where(eq(maps.id, mapIds["146-128"]));
-    const address = cert.certificates.address;
+    expect(cert.certificates.address).toBe(address);
     await expect(page.getByText(address, { exact: true }).count()).resolves.toBeGreaterThan(0);
     const tikz = await page.locator(`pre[aria-label="tikz-cd source of the commuting square"]`).textContent();
     expect(tikz).toContain("\\begin{tikzcd}");
     expect(tikz).toContain('"f_{146}^{3}"');
     expect(tikz).toContain('"g_{128}"');
+    expect(tikz).toContain('"\\pi \\circ B_{3}"');
     const bibtex = await page.locator(`pre[aria-label="BibTeX entry"]`).textContent();
     expect(bibtex).toContain(`@misc{squarely:${address.slice("sha256:".length, "sha256:".length + 12)},`);
     const href = await page.getByRole("link", { name: "Download certificate (JSON)" }).getAttribute("href");
     const downloaded = decodeURIComponent(href!.slice(href!.indexOf(",") + 1));
     expect(downloaded).toBe(cert.certificates.body);
-    // Independent of our code: RFC 8785 via the canonicalize package, SHA-256 via node:crypto, over
-    // the certificate without the `address` seal it carries (DOMAIN.md §5).
     const { address: seal, ...content } = JSON.parse(downloaded) as { address: string };
+    expect(content).toEqual(expected);
     expect(seal).toBe(address);
     const digest = createHash("sha256").update(canonicalize(content)!).digest("hex");
     expect(`sha256:${digest}`).toBe(address);

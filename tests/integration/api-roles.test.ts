@@ -16,7 +16,7 @@ import * as search from "@/app/api/search/route";
 import * as tokenById from "@/app/api/tokens/[id]/route";
 import * as tokens from "@/app/api/tokens/route";
 import { getMap, setDatabase } from "@/db/queries/atlas";
-import { ROLES, can, type Action, type Role } from "@/lib/policy";
+import { ROLES, type Action, type Role } from "@/lib/policy";
 import { closeVerificationPool } from "@/server/atlas/pool";
 import { submitBuild, submitChain } from "@/server/atlas/submit";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
@@ -37,8 +37,39 @@ const fixture = {} as {
   retractable: Record<Role, string>;
 };
 
+/**
+ * Who gets a 2xx, written out per endpoint rather than read from lib/policy (a test that asks can() for its
+ * expectations passes whatever the table says). Everyone else gets 403.
+ */
+const EVERYONE: Role[] = ["viewer", "contributor", "curator", "admin"];
+const CONTRIBUTORS: Role[] = ["contributor", "curator", "admin"];
+const CURATORS: Role[] = ["curator", "admin"];
+const ALLOWED: Record<string, Role[]> = {
+  "GET /api/models": EVERYONE,
+  "POST /api/models": CONTRIBUTORS,
+  "GET /api/models/{id}": EVERYONE,
+  "GET /api/models/{id}/maps": EVERYONE,
+  "POST /api/certificates": CONTRIBUTORS,
+  "GET /api/certificates/{address}": EVERYONE,
+  "GET /api/maps/{id}": EVERYONE,
+  "POST /api/maps/{id}/retract": CURATORS,
+  "POST /api/maps/{id}/symmetry": CONTRIBUTORS,
+  "GET /api/chains": EVERYONE,
+  "POST /api/chains": CONTRIBUTORS,
+  "GET /api/chains/{id}": EVERYONE,
+  "GET /api/paths": EVERYONE,
+  "GET /api/ask": EVERYONE,
+  "GET /api/search": EVERYONE,
+};
+const expectedStatus = (role: Role, endpoint: string): "2xx" | 403 => {
+  const allowed = ALLOWED[endpoint];
+  if (!allowed) throw new Error(`no expected roles written for ${endpoint}`);
+  return allowed.includes(role) ? "2xx" : 403;
+};
+
 type Endpoint = {
   name: string;
+  /** The policy action the handler checks (documentation; the expected statuses come from ALLOWED). */
   action: Action;
   handler: unknown;
   request: (role: Role) => { path: string; method?: string; body?: unknown; params?: Record<string, string> };
@@ -156,7 +187,7 @@ afterAll(async () => {
   t.cleanup();
 });
 
-describe("each role against each endpoint, as lib/policy says", () => {
+describe("each role against each endpoint, with the statuses written out", () => {
   it("without a session or a token every endpoint answers 401", async () => {
     setSessionReader(async () => null);
     for (const e of endpoints) {
@@ -166,14 +197,13 @@ describe("each role against each endpoint, as lib/policy says", () => {
     }
   });
 
-  it("a token of each role gets 2xx exactly where the policy allows the action, 403 elsewhere", async () => {
+  it("a token of each role gets 2xx exactly where ALLOWED names its role, 403 elsewhere", async () => {
     setSessionReader(async () => null);
     for (const role of ROLES) {
       const token = await tokenFor(seeded.people[role].id, seeded.workspace.id, role);
       for (const e of endpoints) {
         const res = await call(e.handler, { ...e.request(role), token });
-        const allowed = can(role, e.action);
-        if (allowed) expect([200, 201], `${role} ${e.name}: ${JSON.stringify(res.json)}`).toContain(res.status);
+        if (expectedStatus(role, e.name) === "2xx") expect([200, 201], `${role} ${e.name}: ${JSON.stringify(res.json)}`).toContain(res.status);
         else expect(res.status, `${role} ${e.name}`).toBe(403);
       }
     }
@@ -186,7 +216,7 @@ describe("each role against each endpoint, as lib/policy says", () => {
       for (const e of endpoints) {
         if (e.action === "map:retract") continue; // each map retracts once; covered through tokens above
         const res = await call(e.handler, e.request(role));
-        if (can(role, e.action)) expect([200, 201], `${role} ${e.name}: ${JSON.stringify(res.json)}`).toContain(res.status);
+        if (expectedStatus(role, e.name) === "2xx") expect([200, 201], `${role} ${e.name}: ${JSON.stringify(res.json)}`).toContain(res.status);
         else expect(res.status, `${role} ${e.name}`).toBe(403);
       }
     }

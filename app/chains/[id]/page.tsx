@@ -56,6 +56,7 @@ export default async function ChainPage({ params }: Props) {
     source,
     target,
     certificateAddress: composite.address,
+    certificate: composite.body,
   };
   const tikz = tikzSquare(square);
   const hex = composite.address.replace(/^sha256:/, "");

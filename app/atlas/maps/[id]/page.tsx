@@ -44,7 +44,7 @@ export default async function MapPage({ params }: Props) {
   if (!certificate || !source || !target) notFound();
 
   const hex = certificate.address.replace(/^sha256:/, "");
-  const square: SquareInput = { kind: map.kind, block: map.block, steps: map.steps, source, target, certificateAddress: certificate.address };
+  const square: SquareInput = { kind: map.kind, block: map.block, steps: map.steps, source, target, certificateAddress: certificate.address, certificate: certificate.body };
   const tikz = tikzSquare(square);
   const bibtex = bibtexEntry({
     certificateAddress: certificate.address,
