@@ -2,6 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { AppError, toResponse } from "@/server/errors";
 import { MAX_BODY_BYTES } from "./handler-limits";
+import { requireSameOriginWrite } from "./same-origin";
 
 export { MAX_BODY_BYTES };
 
@@ -34,8 +35,12 @@ export function badInput(error: z.ZodError, where: string): AppError {
   return new AppError("bad_input", `${first.field}: ${first.message}`, { field: first.field, details: { issues } });
 }
 
-/** Reads and validates a JSON body: 413 when too large, 400 for bad JSON or fields. */
+/**
+ * Reads and validates a JSON body: 413 when too large, 400 for bad JSON or fields. A body without a
+ * Bearer token may ride on the session cookie, so it must first pass the same-origin JSON guard.
+ */
 export async function parseBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
+  if (!request.headers.has("authorization")) requireSameOriginWrite(request);
   const declared = Number(request.headers.get("content-length") ?? "0");
   if (declared > MAX_BODY_BYTES) throw tooLarge(declared);
   const text = await request.text();
