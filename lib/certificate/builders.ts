@@ -4,6 +4,7 @@ import { canonicalModel, modelMatrix, ruleTableModel, type Model } from "@/lib/m
 import { formatRational } from "@/lib/rational";
 import { sealCertificate } from "./certificateAddress";
 import { CERTIFICATE_FORMAT, CERTIFICATE_VERSION, type Certificate, type CertificateMap } from "./schema";
+import { blockLabel } from "./blockLabel";
 
 export type Built<C> = { ok: true; certificate: Certificate } | { ok: false; counterexample: C };
 
@@ -55,7 +56,7 @@ export function certifyLumping(input: { chain: unknown; partition: number[]; ste
   const check = checkLumping(p, input.partition);
   if (!check.ok) return check;
   const labels = labelsOf(source);
-  const blockLabels = check.lumped.map((_, b) => `{${labels.filter((_, i) => check.partition[i] === b).join(",")}}`);
+  const blockLabels = check.lumped.map((_, b) => blockLabel(labels.filter((_, i) => check.partition[i] === b), b));
   const target: Model = { kind: "markov", labels: blockLabels, matrix: formatMatrix(check.lumped) };
   return { ok: true, certificate: issue({ kind: "lumping", partition: check.partition, steps }, source, target) };
 }

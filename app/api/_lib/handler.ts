@@ -43,9 +43,15 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   if (!request.headers.has("authorization")) requireSameOriginWrite(request);
   const declared = Number(request.headers.get("content-length") ?? "0");
   if (declared > MAX_BODY_BYTES) throw tooLarge(declared);
-  const text = await request.text();
-  const size = Buffer.byteLength(text, "utf8");
-  if (size > MAX_BODY_BYTES) throw tooLarge(size);
+  const bytes = new Uint8Array(await request.arrayBuffer());
+  if (bytes.byteLength > MAX_BODY_BYTES) throw tooLarge(bytes.byteLength);
+  let text: string;
+  try {
+    // JSON text is UTF-8 (RFC 8259 §8.1); a byte sequence that is not must not be silently replaced.
+    text = UTF8.decode(bytes);
+  } catch {
+    throw new AppError("bad_input", "The request body is not valid UTF-8.", { field: "body" });
+  }
   let json: unknown;
   try {
     json = text.length === 0 ? {} : JSON.parse(text);
@@ -56,6 +62,8 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   if (!parsed.success) throw badInput(parsed.error, "body");
   return parsed.data;
 }
+
+const UTF8 = new TextDecoder("utf-8", { fatal: true });
 
 function tooLarge(size: number): AppError {
   return new AppError("too_large", `The request body has ${size} bytes; the limit is ${MAX_BODY_BYTES}.`, {
