@@ -3,7 +3,7 @@
  * person; when a thread frees up, it goes to the waiting task whose workspace has the fewest tasks
  * running, then whose person has the fewest running, then the one that waited longest (max-min
  * fair sharing; Demers, Keshav & Shenker, "Analysis and simulation of a fair queueing algorithm",
- * SIGCOMM 1989). Small tasks also have a lane of their own that large tasks never enter, so a
+ * SIGCOMM 1989), ties going round robin to whoever was served least recently. Small tasks also have a lane of their own that large tasks never enter, so a
  * small check never waits behind large ones. A task's time bound starts when it gets a thread.
  */
 export type Lane = "main" | "fast";
@@ -26,7 +26,10 @@ export class FairQueue {
   private readonly running = { main: 0, fast: 0 };
   private readonly byWorkspace = new Map<string, number>();
   private readonly byPerson = new Map<string, number>();
+  /** When each workspace ("w:") and person ("p:") last got a thread, in dispatch ticks. */
+  private readonly lastServed = new Map<string, number>();
   private seq = 0;
+  private tick = 0;
 
   constructor(private readonly options: FairQueueOptions) {}
 
@@ -65,16 +68,26 @@ export class FairQueue {
     return best;
   }
 
+  /** Fewest running, then served least recently (round robin), for the workspace and then the person. */
   private before(a: Waiting, b: Waiting): boolean {
-    const ws = (this.byWorkspace.get(a.workspaceId) ?? 0) - (this.byWorkspace.get(b.workspaceId) ?? 0);
-    if (ws !== 0) return ws < 0;
-    const person = (this.byPerson.get(a.userId) ?? 0) - (this.byPerson.get(b.userId) ?? 0);
-    if (person !== 0) return person < 0;
+    const keys: [Map<string, number>, string, string][] = [
+      [this.byWorkspace, a.workspaceId, b.workspaceId],
+      [this.lastServed, `w:${a.workspaceId}`, `w:${b.workspaceId}`],
+      [this.byPerson, a.userId, b.userId],
+      [this.lastServed, `p:${a.userId}`, `p:${b.userId}`],
+    ];
+    for (const [counts, x, y] of keys) {
+      const d = (counts.get(x) ?? -1) - (counts.get(y) ?? -1);
+      if (d !== 0) return d < 0;
+    }
     return a.seq < b.seq;
   }
 
   private start(task: Waiting, lane: Lane): void {
     this.running[lane]++;
+    this.tick++;
+    this.lastServed.set(`w:${task.workspaceId}`, this.tick);
+    this.lastServed.set(`p:${task.userId}`, this.tick);
     bump(this.byWorkspace, task.workspaceId, 1);
     bump(this.byPerson, task.userId, 1);
     const done = () => {

@@ -109,3 +109,8 @@ export async function closeVerificationPool(): Promise<void> {
   holder.squarelyVerifyPools = undefined;
   await Promise.all([p?.main.destroy(), p?.fast.destroy()]);
 }
+
+/** Checks waiting and running per lane (an operator's view, and tests). */
+export function verificationLoad(): { waiting: number; running: Record<Lane, number> } {
+  return pools().queue.snapshot();
+}
