@@ -323,3 +323,15 @@ export const auditEvents = sqliteTable(
   (t) => [index("audit_workspace_idx").on(t.workspaceId, t.createdAt)],
 );
 export type AuditEvent = InferSelectModel<typeof auditEvents>;
+
+/**
+ * Fixed-window counters of sign-in attempts and sign-in-link requests, keyed by what is limited
+ * ("sign-in:account:<e-mail>", "link:address:<ip>"). In the database so that every app process
+ * sharing it counts against the same limit.
+ */
+export const rateLimits = sqliteTable("rate_limits", {
+  key: text("key").primaryKey(),
+  count: integer("count").notNull().default(0),
+  windowStart: integer("window_start", { mode: "timestamp_ms" }).notNull(),
+});
+export type RateLimit = InferSelectModel<typeof rateLimits>;

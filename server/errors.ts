@@ -9,8 +9,10 @@ export const ERROR_STATUS = {
   not_found: 404,
   conflict: 409,
   too_large: 413,
+  unsupported_media_type: 415,
   does_not_commute: 422,
   too_many_jobs: 429,
+  too_many_requests: 429,
   database: 500,
   internal: 500,
 } as const satisfies Record<string, number>;

@@ -1,10 +1,12 @@
 "use server";
 
 import { AuthError } from "next-auth";
+import { headers } from "next/headers";
 import { z } from "zod";
 import { signIn, signOut } from "@/auth";
 import { createUserWithWorkspace } from "@/db/queries/users";
 import { hashPassword } from "@/server/auth/password";
+import { checkRateLimit, clientAddress, refundAttempt, waitText } from "@/server/auth/rate-limit";
 import { SIGN_IN_LINK_MINUTES, requestSignInLink } from "@/server/auth/sign-in-link";
 import { isAppError } from "@/server/errors";
 import { fieldErrorsOf, type FormState } from "@/components/ui/form-state";
@@ -26,6 +28,11 @@ const SignInInput = z.object({
   password: z.string().min(1, "Enter your password.").max(200),
   callbackUrl: z.string().optional(),
 });
+
+/** The form's answer past a rate limit (a server action cannot answer 429; the API endpoint does). */
+function tooManyAttempts(what: string, seconds: number): string {
+  return `Too many ${what} for this address or from this network. Try again in ${waitText(seconds)}.`;
+}
 
 /** Only same-site paths may follow a sign-in; anything else goes to the dashboard. */
 function safeNext(url: string | undefined): string {
@@ -74,11 +81,16 @@ export async function signInAction(_prev: FormState<SignInField>, form: FormData
   const values = { email: text(form, "email") ?? "" };
   if (!parsed.success)
     return { status: "error", message: "Please correct the fields marked below.", fieldErrors: fieldErrorsOf<SignInField>(parsed.error.issues), values };
+  const attempt = { action: "sign-in" as const, email: parsed.data.email, address: clientAddress(await headers()) };
+  const decision = await checkRateLimit(attempt);
+  if (!decision.allowed) return { status: "error", message: tooManyAttempts("sign-in attempts", decision.retryAfterSeconds), values };
   try {
     await signIn("password", { email: parsed.data.email, password: parsed.data.password, redirectTo: safeNext(parsed.data.callbackUrl) });
   } catch (err) {
     // One message for an unknown address and a wrong password alike: the form reveals no accounts.
     if (err instanceof AuthError) return { status: "error", message: "That e-mail and password do not match an account.", values };
+    // Anything else is the redirect of a successful sign-in: only failures count against the limit.
+    await refundAttempt(attempt);
     throw err;
   }
   return { status: "ok" };
@@ -88,6 +100,9 @@ export async function requestLinkAction(_prev: FormState<"email">, form: FormDat
   const parsed = z.object({ email: Email }).safeParse({ email: text(form, "email") });
   const values = { email: text(form, "email") ?? "" };
   if (!parsed.success) return { status: "error", fieldErrors: fieldErrorsOf<"email">(parsed.error.issues), values };
+  // Counted whether or not the address has an account, so the answer tells nothing about accounts.
+  const decision = await checkRateLimit({ action: "link", email: parsed.data.email, address: clientAddress(await headers()) });
+  if (!decision.allowed) return { status: "error", message: tooManyAttempts("sign-in links", decision.retryAfterSeconds), values };
   try {
     await requestSignInLink({ email: parsed.data.email });
   } catch (err) {

@@ -1,7 +1,7 @@
 /** The atlas data layer: the one way in for app/, server/ and tests. */
 export { setDatabase, getDatabase, type Executor } from "./connection";
 export { upsertModel, getModel, listModels, type ModelFields, type ModelKind } from "./models";
-export { getCertificate, type VerifiedCertificate } from "./certificates";
+export { getCertificate, getWorkspaceCertificate, type VerifiedCertificate } from "./certificates";
 export {
   createCertifiedEdge,
   getMap,

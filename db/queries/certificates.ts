@@ -1,6 +1,6 @@
 import "server-only";
-import { eq } from "drizzle-orm";
-import { certificates, type Certificate } from "@/db/schema";
+import { and, eq, exists, or } from "drizzle-orm";
+import { certificates, chains, maps, type Certificate } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
 
 /** A certificate as the server verified it, ready to store. */
@@ -39,6 +39,43 @@ export async function getCertificate({
 }): Promise<Certificate | null> {
   return withDb("reading a certificate", async () => {
     const row = await db.select().from(certificates).where(eq(certificates.address, address)).get();
+    return row ?? null;
+  });
+}
+
+/**
+ * A certificate as one workspace sees it: only when one of its maps or chains cites it. Certificates
+ * are stored once for the installation, so an address alone must not open another workspace's.
+ */
+export async function getWorkspaceCertificate({
+  db = getDatabase(),
+  workspaceId,
+  address,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  address: string;
+}): Promise<Certificate | null> {
+  return withDb("reading a certificate", async () => {
+    const cited = or(
+      exists(
+        db
+          .select({ one: maps.id })
+          .from(maps)
+          .where(and(eq(maps.workspaceId, workspaceId), eq(maps.certificateAddress, certificates.address))),
+      ),
+      exists(
+        db
+          .select({ one: chains.id })
+          .from(chains)
+          .where(and(eq(chains.workspaceId, workspaceId), eq(chains.compositeCertificateAddress, certificates.address))),
+      ),
+    );
+    const row = await db
+      .select()
+      .from(certificates)
+      .where(and(eq(certificates.address, address), cited))
+      .get();
     return row ?? null;
   });
 }

@@ -7,5 +7,11 @@ import { supercellTable } from "./supercellTable";
  */
 export function iterateTable(t: RuleTable, T: number): RuleTable {
   if (!Number.isInteger(T) || T < 1) throw new CaInputError("steps", `steps must be a positive integer, got ${T}`);
-  return supercellTable(t, 1, T);
+  try {
+    return supercellTable(t, 1, T);
+  } catch (e) {
+    // The supercell is of block 1, so what made the table too large is the number of steps.
+    if (e instanceof CaInputError && e.field === "block") throw new CaInputError("steps", `the ${T}-step iterate is too large: ${e.message.replace(/^block: /, "")}`);
+    throw e;
+  }
 }

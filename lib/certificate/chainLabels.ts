@@ -1,4 +1,5 @@
 import type { Model } from "@/lib/models";
+import { blockLabel } from "./blockLabel";
 
 /** The state labels of a chain-like model (a decimated chain has its base's labels); [] for a CA. */
 export function chainLabels(model: Model): string[] {
@@ -7,10 +8,11 @@ export function chainLabels(model: Model): string[] {
 
 /**
  * The labels a lumped chain's states must carry (FORMAT.md): block B, in the canonical numbering by first
- * appearance, is labelled "{a,b}" with the labels of its states in the source's order. Labels are part of
+ * appearance, is labelled "{a,b}" with the labels of its states in the source's order (cut to fit the
+ * label bound as blockLabel says). Labels are part of
  * a model's address, so a lumped chain is named by what it lumps, not by the issuer's choice.
  */
 export function blockLabels(labels: readonly string[], partition: readonly number[]): string[] {
   const blocks = partition.reduce((m, b) => Math.max(m, b + 1), 0);
-  return Array.from({ length: blocks }, (_, b) => `{${labels.filter((_, i) => partition[i] === b).join(",")}}`);
+  return Array.from({ length: blocks }, (_, b) => blockLabel(labels.filter((_, i) => partition[i] === b), b));
 }

@@ -30,6 +30,7 @@ export function requireHolds(outcome: VerifyOutcome, field = "certificate"): Ver
         }),
       );
     case "model":
+    case "address":
     case "chain":
     case "broken-chain":
     case "derived":

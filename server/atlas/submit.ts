@@ -3,10 +3,11 @@ import { createCertifiedEdge, createChain, getCertificate, getMap, upsertModel }
 import { findMapIdByCertificate } from "@/db/queries/maps";
 import type { Model } from "@/db/schema";
 import { env } from "@/env";
-import { certificateAddress } from "@/lib/certificate";
 import { AppError } from "@/server/errors";
 import { requireHolds } from "./outcome";
-import { runVerification } from "./pool";
+import type { Owner } from "./fair-queue";
+import { exceededServerBound, isSmall, payloadSize } from "./payload-size";
+import { runVerification, VERIFY_LIMITS, type CheckOwner } from "./pool";
 import type { BuildRequest, Derivation, Verified } from "./verify-task";
 
 export type SubmitResult = { status: "created" | "existing"; mapId: string; address: string };
@@ -26,9 +27,10 @@ export async function submitCertificate({
   userId: string;
   certificate: unknown;
 }): Promise<SubmitResult> {
-  const known = await existingFor(workspaceId, certificate);
+  const owner = admit(certificate, "certificate", { workspaceId, userId });
+  const known = await existingFor(workspaceId, certificate, owner);
   if (known) return known;
-  const verified = requireHolds(await runVerification({ op: "verify", certificate }), "certificate");
+  const verified = requireHolds(await runVerification({ op: "verify", certificate }, VERIFY_LIMITS, owner), "certificate");
   return store({ workspaceId, userId, verified });
 }
 
@@ -42,7 +44,8 @@ export async function submitBuild({
   userId: string;
   build: BuildRequest;
 }): Promise<SubmitResult> {
-  const verified = requireHolds(await runVerification({ op: "build", build }), "build");
+  const owner = admit(build, "build", { workspaceId, userId });
+  const verified = requireHolds(await runVerification({ op: "build", build }, VERIFY_LIMITS, owner), "build");
   return store({ workspaceId, userId, verified });
 }
 
@@ -56,23 +59,44 @@ export async function ensureModel({
   userId: string;
   model: unknown;
 }): Promise<{ status: "created" | "existing"; model: Model }> {
-  const outcome = await runVerification({ op: "model", model });
+  const owner = admit(model, "model", { workspaceId, userId });
+  const outcome = await runVerification({ op: "model", model }, VERIFY_LIMITS, owner);
+  if (outcome.status === "too-large") requireHolds(outcome, "model");
   if (outcome.status === "malformed") requireHolds(outcome, "model");
   if (outcome.status !== "model") throw new AppError("internal", "The verification worker answered a different question.");
   const stored = await upsertModel({ workspaceId, model: outcome.fields, userId });
   return { status: stored.created ? "created" : "existing", model: stored.model };
 }
 
-/** A certificate whose address is already a map here needs no second check: nothing is written. */
-async function existingFor(workspaceId: string, certificate: unknown): Promise<SubmitResult | null> {
-  let address: string;
-  try {
-    address = certificateAddress(certificate);
-  } catch {
-    return null; // malformed: the checker will say where
+/**
+ * The request thread's only look at submitted data: sizes (lengths and digit counts, no arithmetic)
+ * against the server bounds, answered 413 naming the bound; and whether the check is small enough
+ * for the verifier's fast lane. Everything that computes on the data runs in a worker thread.
+ */
+function admit(payload: unknown, field: string, owner: Owner): CheckOwner {
+  const size = payloadSize(payload);
+  const refusal = exceededServerBound(size, VERIFY_LIMITS.sizes, field);
+  if (refusal?.status === 400) {
+    throw new AppError("bad_input", `${refusal.field}: nests deeper than ${refusal.limit} levels (${refusal.bound}).`, { field: refusal.field });
   }
-  const mapId = await findMapIdByCertificate({ workspaceId, address });
-  return mapId ? { status: "existing", mapId, address } : null;
+  if (refusal) {
+    throw new AppError("too_large", `The check exceeds the limit on ${refusal.bound}: ${refusal.asked} > ${refusal.limit}.`, {
+      field: refusal.field,
+      details: { bound: refusal.bound, limit: refusal.limit, asked: refusal.asked },
+    });
+  }
+  return { ...owner, small: isSmall(size) };
+}
+
+/**
+ * A certificate whose address is already a map here needs no second check: nothing is written. The
+ * address (canonical form, rationals in lowest terms) is computed in a worker, never on this thread.
+ */
+async function existingFor(workspaceId: string, certificate: unknown, owner: CheckOwner): Promise<SubmitResult | null> {
+  const outcome = await runVerification({ op: "address", certificate }, VERIFY_LIMITS, owner);
+  if (outcome.status !== "address") return null; // malformed: the checker will say where
+  const mapId = await findMapIdByCertificate({ workspaceId, address: outcome.address });
+  return mapId ? { status: "existing", mapId, address: outcome.address } : null;
 }
 
 async function store({
@@ -139,7 +163,7 @@ export async function submitChain({
     if (!cert) throw new AppError("internal", `The certificate of map ${mapId} is missing.`);
     certificates.push(JSON.parse(cert.body));
   }
-  const outcome = await runVerification({ op: "chain", certificates });
+  const outcome = await runVerification({ op: "chain", certificates }, VERIFY_LIMITS, { workspaceId, userId });
   if (outcome.status === "broken-chain") {
     throw new AppError("does_not_commute", outcome.reason, {
       field: outcome.link >= 0 ? `mapIds.${outcome.link}` : "mapIds",
@@ -183,7 +207,7 @@ export async function submitSymmetricImages({
   if (!map) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: "mapId" });
   const cert = await getCertificate({ address: map.certificateAddress });
   if (!cert) throw new AppError("internal", `The certificate of map ${mapId} is missing.`);
-  const outcome = await runVerification({ op: "symmetry", certificate: JSON.parse(cert.body) });
+  const outcome = await runVerification({ op: "symmetry", certificate: JSON.parse(cert.body) }, VERIFY_LIMITS, { workspaceId, userId });
   if (outcome.status !== "derived") {
     requireHolds(outcome, "certificate");
     throw new AppError("internal", "The verification worker answered a different question.");

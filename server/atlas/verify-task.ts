@@ -20,6 +20,8 @@ import { canonicalModel, ModelInputError } from "@/lib/models";
 import { complementCertificate, reflectCertificate, symmetryClass } from "@/lib/symmetry";
 import { CHECKER_VERSION, verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
 import { modelFields } from "./model-fields";
+import { modelExceeds } from "./model-bounds";
+import { exceededServerBound, payloadSize, type SizeRefusal } from "./payload-size";
 
 /** Ask the server to build the certificate from a claim (what a script sends when it has no builder). */
 export type BuildRequest =
@@ -32,7 +34,8 @@ export type BuildRequest =
 export type VerifyTask =
   | { op: "verify"; certificate: unknown; limits: Limits }
   | { op: "build"; build: BuildRequest; limits: Limits }
-  | { op: "model"; model: unknown }
+  | { op: "model"; model: unknown; limits: Limits }
+  | { op: "address"; certificate: unknown; limits: Limits }
   | { op: "chain"; certificates: unknown[]; limits: Limits }
   | { op: "symmetry"; certificate: unknown; limits: Limits };
 
@@ -57,11 +60,18 @@ export type VerifyOutcome =
   | Verified
   | Exclude<VerifyResult, { status: "holds" }>
   | { status: "model"; fields: ModelFields }
+  | { status: "address"; address: string }
   | { status: "chain"; composite: Verified; verification: "links" | "links+composite" }
   | { status: "broken-chain"; link: number; reason: string }
   | { status: "derived"; variants: { derivation: Derivation; verified: Verified }[]; skipped: { derivation: Derivation; reason: string }[] };
 
+/**
+ * Runs one task in the worker thread. The server bounds are checked again here, before any work, so
+ * that a task that reached the worker another way is held to the same limits as a request.
+ */
 export function runVerifyTask(task: VerifyTask): VerifyOutcome {
+  const oversized = exceededServerBound(payloadSize(payloadOf(task)), task.limits, "");
+  if (oversized) return tooLarge(oversized);
   switch (task.op) {
     case "verify":
       return described(verifyCertificate(task.certificate, task.limits));
@@ -75,9 +85,18 @@ export function runVerifyTask(task: VerifyTask): VerifyOutcome {
       const composite = verifiedFields(result.composite, "");
       return { status: "chain", composite, verification: result.verification };
     }
+    case "address":
+      try {
+        return { status: "address", address: certificateAddress(task.certificate) };
+      } catch (e) {
+        return { status: "malformed", issues: [{ path: "", message: e instanceof Error ? e.message : String(e) }] };
+      }
     case "model":
       try {
-        return { status: "model", fields: modelFields(canonicalModel(task.model), symmetryClass) };
+        const model = canonicalModel(task.model);
+        const over = modelExceeds(model, task.limits);
+        if (over) return { status: "too-large", ...over };
+        return { status: "model", fields: modelFields(model, symmetryClass) };
       } catch (e) {
         if (e instanceof ModelInputError) return { status: "malformed", issues: e.issues };
         return { status: "malformed", issues: [{ path: "", message: e instanceof Error ? e.message : String(e) }] };
@@ -171,4 +190,24 @@ function symmetric(input: unknown, limits: Limits): VerifyOutcome {
     variants.push({ derivation, verified: verifiedFields(checked.certificate, checked.checkerVersion) });
   }
   return { status: "derived", variants, skipped };
+}
+
+function payloadOf(task: VerifyTask): unknown {
+  switch (task.op) {
+    case "verify":
+    case "address":
+    case "symmetry":
+      return task.certificate;
+    case "build":
+      return task.build;
+    case "model":
+      return task.model;
+    case "chain":
+      return null; // stored certificates, each verified within the limits when it was submitted
+  }
+}
+
+function tooLarge(refusal: SizeRefusal): VerifyOutcome {
+  if (refusal.status === 400) return { status: "malformed", issues: [{ path: refusal.field, message: `nests deeper than ${refusal.limit} levels (${refusal.bound})` }] };
+  return { status: "too-large", bound: refusal.bound, limit: refusal.limit, asked: refusal.asked };
 }

@@ -38,10 +38,15 @@ afterAll(async () => {
 const as = (who: { id: string; email: string } | null) => {
   signedIn = who ? { id: who.id, email: who.email, name: who.email } : null;
 };
+// What the app's own pages send with a cookie-authenticated write.
+const SAME_SITE_JSON = { origin: "http://test", "content-type": "application/json" };
 const noParams = { params: Promise.resolve({}) as Promise<Record<string, never>> };
 const idParams = (id: string) => ({ params: Promise.resolve({ id }) });
 const post = (body: unknown) =>
-  jobsRoute.POST(new Request("http://test/api/jobs", { method: "POST", body: typeof body === "string" ? body : JSON.stringify(body) }), noParams);
+  jobsRoute.POST(
+    new Request("http://test/api/jobs", { method: "POST", headers: SAME_SITE_JSON, body: typeof body === "string" ? body : JSON.stringify(body) }),
+    noParams,
+  );
 
 describe("the jobs API", () => {
   it("answers 401 signed out and 403 to a viewer creating a job", async () => {
@@ -90,10 +95,10 @@ describe("the jobs API", () => {
 
     // Another contributor may not cancel it; the owner may.
     as(people.otherContributor);
-    const refused = await cancelRoute.POST(new Request("http://test", { method: "POST" }), idParams(created[0].id));
+    const refused = await cancelRoute.POST(new Request("http://test", { method: "POST", headers: { origin: "http://test" } }), idParams(created[0].id));
     expect(refused.status).toBe(403);
     as(people.contributor);
-    const cancelled = await cancelRoute.POST(new Request("http://test", { method: "POST" }), idParams(created[0].id));
+    const cancelled = await cancelRoute.POST(new Request("http://test", { method: "POST", headers: { origin: "http://test" } }), idParams(created[0].id));
     expect(cancelled.status).toBe(200);
     expect((await cancelled.json()).status).toBe("cancelled");
     expect((await post({ kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } })).status).toBe(201);

@@ -64,10 +64,12 @@ function built<T>(result: { ok: true; certificate: T } | { ok: false }): T {
   return result.certificate;
 }
 
+// What the app's own pages send with a cookie-authenticated write.
+const SAME_SITE_JSON = { origin: "http://test", "content-type": "application/json" };
 const watchRequest = (method: "POST" | "DELETE" | "GET", modelId: string) =>
   method === "POST"
-    ? new Request("http://test/api/watches", { method, body: JSON.stringify({ modelId }) })
-    : new Request(`http://test/api/watches?modelId=${encodeURIComponent(modelId)}`, { method });
+    ? new Request("http://test/api/watches", { method, headers: SAME_SITE_JSON, body: JSON.stringify({ modelId }) })
+    : new Request(`http://test/api/watches?modelId=${encodeURIComponent(modelId)}`, { method, headers: { origin: "http://test" } });
 const noParams = { params: Promise.resolve({}) as Promise<Record<string, never>> };
 
 describe("watchers' mail", () => {
@@ -90,7 +92,7 @@ describe("watchers' mail", () => {
     const unknown = await watchesRoute.POST(watchRequest("POST", "no-such-model"), noParams);
     expect(unknown.status).toBe(404);
     expect((await unknown.json()).error.field).toBe("modelId");
-    const bad = await watchesRoute.POST(new Request("http://test/api/watches", { method: "POST", body: "{}" }), noParams);
+    const bad = await watchesRoute.POST(new Request("http://test/api/watches", { method: "POST", headers: SAME_SITE_JSON, body: "{}" }), noParams);
     expect(bad.status).toBe(400);
     expect((await bad.json()).error.field).toBe("modelId");
 

@@ -5,6 +5,7 @@ import { can, refusalReason, roleRank, type Action, type Role } from "@/lib/poli
 import { AppError } from "@/server/errors";
 import { cachedToken, rememberToken } from "@/server/tokens/cache";
 import { hashTokenSecret } from "@/server/tokens/secret";
+import { requireSameOriginWrite } from "./same-origin";
 
 export type ActorUser = { id: string; email: string; name: string };
 export type Actor = {
@@ -38,13 +39,15 @@ function cookieValue(request: Request, name: string): string | undefined {
 /**
  * Who is asking: `Authorization: Bearer <token>` when present (the token's workspace, and the
  * lower of the token's role and the owner's current role), else the session cookie (the workspace
- * chosen by the `squarely-ws` cookie when the person belongs to it, else their first).
+ * chosen by the `squarely-ws` cookie when the person belongs to it, else their first). A write by
+ * cookie must come from this site's pages as JSON (`requireSameOriginWrite`).
  */
 export async function resolveActor(request: Request): Promise<Actor> {
   const header = request.headers.get("authorization");
   if (header !== null) return resolveToken(header);
   const user = await readSession();
   if (!user) throw new AppError("unauthenticated", "Sign in, or send a personal API token as `Authorization: Bearer <token>`.");
+  requireSameOriginWrite(request);
   const mine = await listWorkspacesForUser({ userId: user.id });
   const chosen = cookieValue(request, WORKSPACE_COOKIE);
   const current = mine.find((w) => w.id === chosen) ?? mine[0];

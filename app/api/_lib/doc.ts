@@ -14,6 +14,8 @@ const ERROR_TEXT: Partial<Record<ErrorCode, string>> = {
   too_large: "The request or its check exceeds the configured limits.",
   does_not_commute: "The check ran and the square does not commute; `error.details` holds the counterexample.",
   too_many_jobs: "Too many jobs running.",
+  too_many_requests: "Too many attempts; `Retry-After` says when to try again.",
+  unsupported_media_type: "A cookie-authenticated write must send its body as `application/json`.",
 };
 
 export function jsonBody(schema: z.ZodType, description: string) {

@@ -2,6 +2,7 @@ import "server-only";
 import type { z } from "zod";
 import { AppError, toResponse } from "@/server/errors";
 import { MAX_BODY_BYTES } from "./handler-limits";
+import { requireSameOriginWrite } from "./same-origin";
 
 export { MAX_BODY_BYTES };
 
@@ -34,13 +35,23 @@ export function badInput(error: z.ZodError, where: string): AppError {
   return new AppError("bad_input", `${first.field}: ${first.message}`, { field: first.field, details: { issues } });
 }
 
-/** Reads and validates a JSON body: 413 when too large, 400 for bad JSON or fields. */
+/**
+ * Reads and validates a JSON body: 413 when too large, 400 for bad JSON or fields. A body without a
+ * Bearer token may ride on the session cookie, so it must first pass the same-origin JSON guard.
+ */
 export async function parseBody<S extends z.ZodType>(request: Request, schema: S): Promise<z.output<S>> {
+  if (!request.headers.has("authorization")) requireSameOriginWrite(request);
   const declared = Number(request.headers.get("content-length") ?? "0");
   if (declared > MAX_BODY_BYTES) throw tooLarge(declared);
-  const text = await request.text();
-  const size = Buffer.byteLength(text, "utf8");
-  if (size > MAX_BODY_BYTES) throw tooLarge(size);
+  const bytes = new Uint8Array(await request.arrayBuffer());
+  if (bytes.byteLength > MAX_BODY_BYTES) throw tooLarge(bytes.byteLength);
+  let text: string;
+  try {
+    // JSON text is UTF-8 (RFC 8259 §8.1); a byte sequence that is not must not be silently replaced.
+    text = UTF8.decode(bytes);
+  } catch {
+    throw new AppError("bad_input", "The request body is not valid UTF-8.", { field: "body" });
+  }
   let json: unknown;
   try {
     json = text.length === 0 ? {} : JSON.parse(text);
@@ -51,6 +62,8 @@ export async function parseBody<S extends z.ZodType>(request: Request, schema: S
   if (!parsed.success) throw badInput(parsed.error, "body");
   return parsed.data;
 }
+
+const UTF8 = new TextDecoder("utf-8", { fatal: true });
 
 function tooLarge(size: number): AppError {
   return new AppError("too_large", `The request body has ${size} bytes; the limit is ${MAX_BODY_BYTES}.`, {

@@ -12,6 +12,7 @@ import { routes as mapById } from "../maps/[id]/schema";
 import { routes as symmetry } from "../maps/[id]/symmetry/schema";
 import { routes as modelMaps } from "../models/[id]/maps/schema";
 import { routes as modelById } from "../models/[id]/schema";
+import { routes as notes } from "../notes/schema";
 import { routes as models } from "../models/schema";
 import { routes as paths } from "../paths/schema";
 import { routes as search } from "../search/schema";
@@ -35,6 +36,7 @@ const ALL_ROUTES: RouteConfig[] = [
   ...jobRoutes,
   ...watchRoutes,
   ...tokens,
+  ...notes,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to

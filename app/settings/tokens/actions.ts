@@ -1,6 +1,7 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { redirect } from "next/navigation";
 import { z } from "zod";
 import { fieldErrorsOf, type FormState } from "@/components/ui/form-state";
 import { ROLES } from "@/lib/policy";
@@ -35,9 +36,23 @@ export async function createTokenAction(_state: TokenFormState, form: FormData):
   }
 }
 
-/** Revokes one of the signed-in person's own tokens. */
-export async function revokeTokenAction(tokenId: string): Promise<void> {
+/**
+ * Revokes one of the signed-in person's own tokens, then shows the list with the outcome. The id is
+ * a bound argument, which the browser sends back in the form and anyone can change: an id that is
+ * not one of the person's tokens revokes nothing and says so (`?revoke=unknown`).
+ */
+export async function revokeTokenAction(tokenId: unknown): Promise<void> {
   const { user } = await requireAction("token:manage");
-  await revokePersonalToken({ userId: user.id, tokenId: z.string().min(1).max(100).parse(tokenId) });
+  const id = z.string().min(1).max(100).safeParse(tokenId);
+  let outcome: "revoked" | "unknown" = "unknown";
+  if (id.success) {
+    try {
+      await revokePersonalToken({ userId: user.id, tokenId: id.data });
+      outcome = "revoked";
+    } catch (err) {
+      if (!isAppError(err) || err.code !== "not_found") throw err;
+    }
+  }
   revalidatePath("/settings/tokens");
+  redirect(`/settings/tokens?revoke=${outcome}`);
 }

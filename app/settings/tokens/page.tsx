@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/atlas/page-header";
 import { Button } from "@/components/ui/button";
+import { FormMessage } from "@/components/ui/form-message";
+import type { FormState } from "@/components/ui/form-state";
 import { Panel } from "@/components/ui/panel";
 import { ROLES, isRoleWithin } from "@/lib/policy";
 import { requireAction } from "@/server/context";
@@ -14,9 +16,17 @@ function when(d: Date | null): string {
   return d ? d.toISOString().slice(0, 16).replace("T", " ") + " UTC" : "never";
 }
 
+/** What the last revocation did (`?revoke=` set by the action). */
+const REVOKE_STATE: Record<string, FormState> = {
+  revoked: { status: "ok", message: "The token is revoked; scripts using it are refused from now on." },
+  unknown: { status: "error", message: "You have no token with that id; nothing was revoked." },
+};
+
 /** Personal API tokens of the signed-in person in the current workspace: create, list, revoke. */
-export default async function TokensPage() {
+export default async function TokensPage({ searchParams }: { searchParams: Promise<{ revoke?: string | string[] }> }) {
   const { user, workspace, role } = await requireAction("token:manage");
+  const { revoke } = await searchParams;
+  const revoked = typeof revoke === "string" ? REVOKE_STATE[revoke] : undefined;
   const tokens = await listPersonalTokens({ userId: user.id, workspaceId: workspace.id });
   const roles = ROLES.filter((r) => isRoleWithin(r, role));
   return (
@@ -31,6 +41,7 @@ export default async function TokensPage() {
           <TokenForm roles={roles} defaultRole="viewer" />
         </Panel>
         <Panel title="Your tokens">
+          {revoked ? <FormMessage state={revoked} id="revoke-message" /> : null}
           {tokens.length === 0 ? (
             <p className="text-sm text-ink-soft">No tokens yet.</p>
           ) : (

@@ -20,7 +20,7 @@ export const routes: RouteConfig[] = [
   {
     method: "get",
     path: "/api/certificates/{address}",
-    summary: "A stored certificate by its content address, with the checker version that verified it",
+    summary: "A certificate of this workspace (cited by one of its maps or chains) by its content address, with the checker version that verified it",
     tags: ["certificates"],
     security: SECURITY,
     request: { params: Params },

@@ -1,0 +1,144 @@
+import { and, eq, isNull } from "drizzle-orm";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { createApiToken } from "@/db/queries/tokens";
+import { apiTokens } from "@/db/schema";
+import { generateTokenSecret, hashTokenSecret } from "@/server/tokens";
+import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+
+let server: TestServer;
+let browser: Browser;
+
+beforeAll(async () => {
+  server = await startTestServer();
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+  await server?.stop();
+});
+
+function person(role: string) {
+  const found = server.people.find((p) => p.role === role);
+  if (!found) throw new Error(`no demo ${role}`);
+  return found;
+}
+
+async function signedIn(role: string): Promise<Page> {
+  const page = await (await browser.newContext()).newPage();
+  await page.goto(`${server.url}/sign-in`);
+  await page.fill("#email", person(role).email);
+  await page.fill("#password", person(role).password);
+  await page.click("form button[type=submit]");
+  await page.waitForURL(`${server.url}/dashboard`);
+  return page;
+}
+
+async function tokenOf(role: string, name: string): Promise<{ id: string; secret: string }> {
+  const secret = generateTokenSecret();
+  const token = await createApiToken({
+    userId: person(role).id,
+    workspaceId: server.workspace.id,
+    name,
+    role: "contributor",
+    tokenHash: hashTokenSecret(secret),
+    prefix: secret.slice(0, 10),
+  });
+  return { id: token.id, secret };
+}
+
+describe("a malformed percent-escape in a path (probe item 9)", () => {
+  it("is a 400 on API routes and pages, never a 500", async () => {
+    for (const path of ["/api/maps/%ff", "/api/models/%E0%A4%A/maps", "/api/certificates/%c3%28", "/atlas/maps/%ff", "/atlas/models/%ff", "/%ff"]) {
+      const res = await fetch(`${server.url}${path}`, { redirect: "manual" });
+      expect(res.status, path).toBe(400);
+      if (path.startsWith("/api/")) expect(await res.json(), path).toMatchObject({ error: { code: "bad_input", field: "path" } });
+      else await res.arrayBuffer();
+    }
+    // A well-formed escape still reaches its route.
+    const fine = await fetch(`${server.url}/api/maps/%41`);
+    expect(fine.status).toBe(401);
+    await fine.arrayBuffer();
+  });
+});
+
+describe("revoking a token that is not yours from the settings page (probe item 10)", () => {
+  it("answers with a clear message and revokes nothing", async () => {
+    const mine = await tokenOf("admin", "admin's notebook");
+    const theirs = await tokenOf("curator", "curator's notebook");
+    const page = await signedIn("admin");
+    await page.goto(`${server.url}/settings/tokens`);
+    // The token id travels back as the form's bound argument, which anyone can rewrite.
+    const form = page.locator("form:has(button[aria-label='Revoke token admin\\'s notebook'])");
+    const fields = await form.locator("input[type=hidden]").evaluateAll((inputs) =>
+      inputs.map((i) => [(i as HTMLInputElement).name, (i as HTMLInputElement).value] as [string, string]),
+    );
+    const bound = fields.find(([, value]) => value === JSON.stringify([mine.id]));
+    expect(bound, JSON.stringify(fields)).toBeDefined();
+    for (const forged of [theirs.id, "no-such-token", "x".repeat(500)]) {
+      const multipart = Object.fromEntries(fields.map(([name, value]) => [name, name === bound![0] ? JSON.stringify([forged]) : value]));
+      const res = await page.request.post(`${server.url}/settings/tokens`, { multipart, headers: { origin: server.url }, maxRedirects: 0 });
+      expect(res.status(), forged).toBe(303);
+      expect(res.headers().location, forged).toContain("/settings/tokens?revoke=unknown");
+    }
+    const unrevoked = await server.db.select().from(apiTokens).where(isNull(apiTokens.revokedAt));
+    expect(unrevoked.map((t) => t.id)).toEqual(expect.arrayContaining([mine.id, theirs.id]));
+    await page.goto(`${server.url}/settings/tokens?revoke=unknown`);
+    await expect(page.locator("#revoke-message").textContent()).resolves.toContain("nothing was revoked");
+
+    // The real button still revokes the person's own token.
+    await page.click("button[aria-label=\"Revoke token admin's notebook\"]");
+    await page.waitForURL(/revoke=revoked/);
+    const [row] = await server.db.select().from(apiTokens).where(and(eq(apiTokens.id, mine.id)));
+    expect(row.revokedAt).not.toBeNull();
+    await page.context().close();
+  });
+});
+
+describe("security headers (probe item 11)", () => {
+  it("every answer carries CSP, X-Frame-Options and X-Content-Type-Options, and no X-Powered-By", async () => {
+    for (const path of ["/", "/sign-in", "/api/openapi.json", "/api/models"]) {
+      const res = await fetch(`${server.url}${path}`, { redirect: "manual" });
+      await res.arrayBuffer();
+      expect(res.headers.get("content-security-policy"), path).toContain("frame-ancestors 'none'");
+      expect(res.headers.get("x-frame-options"), path).toBe("DENY");
+      expect(res.headers.get("x-content-type-options"), path).toBe("nosniff");
+      expect(res.headers.get("x-powered-by"), path).toBeNull();
+    }
+  });
+
+  it("the main pages load in chromium without a single Content-Security-Policy violation", async () => {
+    const token = await tokenOf("admin", "csp check");
+    const made = await fetch(`${server.url}/api/certificates`, {
+      method: "POST",
+      headers: { authorization: `Bearer ${token.secret}`, "content-type": "application/json" },
+      // Land of Oz chain: Grinstead & Snell, Introduction to Probability, Example 11.1.
+      body: JSON.stringify({
+        build: {
+          kind: "lumping",
+          partition: [0, 1, 0],
+          chain: { kind: "markov", labels: ["R", "N", "S"], matrix: [["1/2", "1/4", "1/4"], ["1/2", "0", "1/2"], ["1/4", "1/4", "1/2"]] },
+        },
+      }),
+    });
+    expect(made.status).toBe(201);
+    const { mapId } = (await made.json()) as { mapId: string };
+    const map = (await (await fetch(`${server.url}/api/maps/${mapId}`, { headers: { authorization: `Bearer ${token.secret}` } })).json()) as {
+      source: { id: string };
+    };
+
+    const page = await signedIn("admin");
+    const violations: string[] = [];
+    page.on("console", (m) => {
+      if (/Content Security Policy|Refused to/i.test(m.text())) violations.push(`${page.url()}: ${m.text()}`);
+    });
+    const pages = ["/", "/dashboard", "/atlas", "/atlas/hierarchy", "/atlas/ask", `/atlas/maps/${mapId}`, `/atlas/models/${map.source.id}`, "/chains/new", "/jobs", "/settings/tokens", "/api-docs", "/sign-in"];
+    for (const path of pages) {
+      const res = await page.goto(`${server.url}${path}`);
+      expect(res?.status(), path).toBeLessThan(400);
+      await page.waitForLoadState("networkidle");
+    }
+    expect(violations).toEqual([]);
+    await page.context().close();
+  });
+});
