@@ -113,6 +113,25 @@ describe("the predicted cost of a check is bounded before any work", () => {
     expect(matrixPower).not.toHaveBeenCalled();
   });
 
+  it("refuses the audit's case at once: a 200-state chain with denominators near 10^4 lumped at 2,000 steps (P^2000 would have about a million digits)", () => {
+    const n = 200;
+    const matrix = Array.from({ length: n }, (_, i) => {
+      const q = 9_973 + i;
+      return Array.from({ length: n }, (_, j) => (j === i ? `1/${q}` : j === (i + 1) % n ? `${q - 1}/${q}` : "0"));
+    });
+    const labels = Array.from({ length: n }, (_, i) => `s${i}`);
+    const partition = Array.from({ length: n }, (_, i) => i % 2);
+    const target = { kind: "markov", labels: ["{x}", "{y}"], matrix: [["1/2", "1/2"], ["1/2", "1/2"]] };
+    const r = verifyCertificate({ ...base, map: { kind: "lumping", partition, steps: 2000 }, source: { kind: "markov", labels, matrix }, target });
+    expect(r).toMatchObject({ status: "too-large", bound: "maxDigits", limit: 20_000 });
+    // Predicted digits: 2000 × the digits of lcm(9973, …, 10172), computed here with Euclid's algorithm.
+    let lcm = 1n;
+    const gcd = (a: bigint, b: bigint): bigint => (b === 0n ? a : gcd(b, a % b));
+    for (let i = 0; i < n; i++) lcm = (lcm / gcd(lcm, BigInt(9_973 + i))) * BigInt(9_973 + i);
+    expect(r.status === "too-large" && r.asked).toBe(2000 * lcm.toString().length);
+    expect(matrixPower).not.toHaveBeenCalled();
+  });
+
   it("refuses an iterate whose windows × steps exceed maxCaCost when the window bound is raised (ECA 30, 13 steps: 2^27 × 13)", () => {
     const r = verifyCertificate({ ...base, map: { kind: "iterate", steps: 13 }, source: { kind: "eca", rule: 30 }, target: { kind: "eca", rule: 30 } }, { ...DEFAULT_LIMITS, maxWindows: 2 ** 30 });
     expect(r).toEqual({ status: "too-large", bound: "maxCaCost", limit: 2 ** 30, asked: 2 ** 27 * 13 });

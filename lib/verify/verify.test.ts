@@ -179,10 +179,9 @@ describe("verifyCertificate: limits checked before any work", () => {
   });
 
   it("predicts the digits of P^k (at most k times the digits of the common denominator, here 4) and refuses a decimation whose result would be too long, at once", () => {
-    const started = Date.now();
+    // That no power is computed first is shown with a spy in bounds.test.ts; timing belongs in bench/.
     const r = verifyCertificate({ ...base, map: { kind: "decimation", steps: 1_000_000 }, source: oz, target: oz }, { ...DEFAULT_LIMITS, maxSteps: 10 ** 9 });
     expect(r).toMatchObject({ status: "too-large", bound: "maxDigits", asked: 1_000_000 });
-    expect(Date.now() - started).toBeLessThan(5_000);
   });
 
   it("refuses too many states", () => {
