@@ -18,7 +18,7 @@ import {
 import { composeChain } from "@/lib/chain";
 import { canonicalModel, ModelInputError } from "@/lib/models";
 import { complementCertificate, reflectCertificate, symmetryClass } from "@/lib/symmetry";
-import { CHECKER_VERSION, verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
+import { buildRequestRefusal, CHECKER_VERSION, verifyCertificate, type Limits, type VerifyResult } from "@/lib/verify";
 import { modelFields } from "./model-fields";
 import { modelExceeds } from "./model-bounds";
 import { exceededServerBound, payloadSize, type SizeRefusal } from "./payload-size";
@@ -105,6 +105,9 @@ export function runVerifyTask(task: VerifyTask): VerifyOutcome {
 }
 
 function build(request: BuildRequest, limits: Limits): VerifyOutcome {
+  // Every bound of the core (steps, states, digits, predicted cost) before the builder does any work.
+  const refusal = buildRequestRefusal(request, limits);
+  if (refusal) return refusal;
   let built;
   try {
     built = builders[request.kind](request as never);

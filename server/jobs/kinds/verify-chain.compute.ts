@@ -17,7 +17,12 @@ export type VerifyChainParams = z.infer<typeof VerifyChainParams>;
  * A job may check what a request may not: the composite's own exhaustive check runs here with
  * bounds 16 times the request's (the job's time and memory bounds still apply).
  */
-export const JOB_LIMITS: Limits = { ...DEFAULT_LIMITS, maxWindows: DEFAULT_LIMITS.maxWindows * 16, maxStates: DEFAULT_LIMITS.maxStates * 2 };
+export const JOB_LIMITS: Limits = {
+  ...DEFAULT_LIMITS,
+  maxWindows: DEFAULT_LIMITS.maxWindows * 16,
+  maxCaCost: (DEFAULT_LIMITS.maxCaCost ?? 2 ** 30) * 16,
+  maxStates: DEFAULT_LIMITS.maxStates * 2,
+};
 
 export type VerifyChainOutput =
   | {
