@@ -35,9 +35,13 @@ export async function countAttempt({
         },
       })
       .returning({ count: rateLimits.count, windowStart: rateLimits.windowStart });
+    // Now and then, forget counters whose window ended a day ago, so the table stays small.
+    if (Math.random() < 0.01) await db.delete(rateLimits).where(sql`${rateLimits.windowStart} < ${at - DAY_MS}`);
     return row;
   });
 }
+
+const DAY_MS = 24 * 60 * 60_000;
 
 /** Takes one attempt back from `key` (never below zero). */
 export async function refundCount({ db = getDatabase(), key }: { db?: Executor; key: string }): Promise<void> {

@@ -142,3 +142,70 @@ describe("security headers (probe item 11)", () => {
     await page.context().close();
   });
 });
+
+describe("rate limits on sign-in and sign-in links (probe item 8)", () => {
+  /** One password sign-in through the auth endpoint, the way a script or the probe sends it. */
+  async function passwordAttempt(email: string, password: string, from: string): Promise<Response> {
+    const csrf = await fetch(`${server.url}/api/auth/csrf`);
+    const { csrfToken } = (await csrf.json()) as { csrfToken: string };
+    const cookie = csrf.headers.getSetCookie().map((c) => c.split(";")[0]).join("; ");
+    const res = await fetch(`${server.url}/api/auth/callback/password`, {
+      method: "POST",
+      redirect: "manual",
+      headers: { "content-type": "application/x-www-form-urlencoded", cookie, "x-forwarded-for": from },
+      body: new URLSearchParams({ email, password, csrfToken, callbackUrl: `${server.url}/dashboard` }),
+    });
+    await res.arrayBuffer();
+    return res;
+  }
+
+  it("the 11th wrong password for an account is 429 with Retry-After, exactly as for an address with no account", async () => {
+    const statuses: Record<string, number[]> = {};
+    for (const [email, from] of [[person("viewer").email, "203.0.113.1"], ["no-account@kestrel-lab.example", "203.0.113.2"]]) {
+      statuses[email] = [];
+      for (let i = 0; i < 11; i++) {
+        const res = await passwordAttempt(email, "wrong-password-guess", from);
+        statuses[email].push(res.status);
+        if (i === 10) expect(Number(res.headers.get("retry-after"))).toBeGreaterThan(800); // a 15-minute window, begun seconds ago
+      }
+    }
+    const [known, unknown] = Object.values(statuses);
+    expect(known.slice(0, 10).every((s) => s !== 429)).toBe(true);
+    expect(known[10]).toBe(429);
+    expect(unknown).toEqual(known);
+    // From yet another address the account is still locked, even with the right password.
+    expect((await passwordAttempt(person("viewer").email, person("viewer").password, "203.0.113.3")).status).toBe(429);
+
+    // The sign-in form shares the limit and says how long to wait.
+    const page = await (await browser.newContext()).newPage();
+    await page.goto(`${server.url}/sign-in`);
+    await page.fill("#email", person("viewer").email);
+    await page.fill("#password", person("viewer").password);
+    await page.click("form button[type=submit]");
+    await expect(page.locator("#form-message [role=alert]").textContent()).resolves.toMatch(/Too many sign-in attempts .* Try again in \d+ minutes/);
+    await page.context().close();
+  });
+
+  it("a fourth sign-in link for one address within 15 minutes is refused with the same words whether or not it has an account", async () => {
+    const answers: Record<string, string[]> = {};
+    for (const email of [person("curator").email, "nobody-at-all@kestrel-lab.example"]) {
+      const page = await (await browser.newContext()).newPage();
+      answers[email] = [];
+      for (let i = 0; i < 4; i++) {
+        await page.goto(`${server.url}/sign-in-by-link`);
+        await page.fill("#email", email);
+        await page.click("form button[type=submit]");
+        const message = page.locator("#form-message p");
+        await message.waitFor();
+        answers[email].push((await message.textContent())!.replace(email, "<address>"));
+      }
+      await page.context().close();
+    }
+    const [known, unknown] = Object.values(answers);
+    expect(known[0]).toContain("If an account uses <address>, a sign-in link is on its way.");
+    expect(known[3]).toContain("Too many sign-in links");
+    expect(unknown).toEqual(known);
+    const links = (await server.readMail()).filter((m) => m.to.includes(person("curator").email));
+    expect(links).toHaveLength(3);
+  });
+});

@@ -59,7 +59,8 @@ describe("fairness of the verifier (probe item 3)", () => {
     const createModel = (rule: number) => call(modelsRoute.POST, { path: "/api/models", method: "POST", body: { model: { kind: "eca", rule } }, token: other });
     expect((await createModel(30)).status).toBe(201); // the fast lane's thread has loaded the checker
 
-    const long = Array.from({ length: 8 }, () => call(certificatesRoute.POST, { path: "/api/certificates", method: "POST", body: LONG, token: busy }));
+    // Two running and eight waiting: as many as one person may have (MAX_WAITING_PER_PERSON).
+    const long = Array.from({ length: 10 }, () => call(certificatesRoute.POST, { path: "/api/certificates", method: "POST", body: LONG, token: busy }));
     await until("both general threads to run the long checks", () => verificationLoad().running.main === 2);
 
     const model = await timed(() => createModel(110));

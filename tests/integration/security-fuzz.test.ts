@@ -60,8 +60,13 @@ const weirdText = fc.oneof(
 const pathValue = fc.oneof(weirdText, fc.constantFrom(...["known-map", "known-address"]).map((k) => known[k === "known-map" ? 0 : 1]));
 const queryValue = fc.oneof(weirdText, fc.integer().map(String), fc.double().map(String));
 
-/** The URL needs well-formed UTF-16 (a lone surrogate makes encodeURIComponent throw); the handler gets the raw value. */
-const wellFormed = (s: string) => s.replace(/[\ud800-\udfff]/gu, "\ufffd");
+/**
+ * The URL needs well-formed text; the handler still gets the raw value (a lone surrogate included),
+ * which is more than a real request can carry once the router has decoded its path.
+ */
+function wellFormed(text: string): string {
+  return text.replace(/[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g, "\ufffd");
+}
 
 /** Replaces the n-th node of a value (depth first) with `replacement`. */
 function mutate(value: unknown, n: number, replacement: unknown): unknown {

@@ -55,7 +55,7 @@ export const routes: RouteConfig[] = [
     responses: {
       201: jsonBody(SubmitOut, "Verified and stored: a new map."),
       200: jsonBody(SubmitOut, "Stored before: the existing map."),
-      ...errorResponses("bad_input", "unauthenticated", "forbidden", "too_large", "does_not_commute"),
+      ...errorResponses("bad_input", "unauthenticated", "forbidden", "too_large", "unsupported_media_type", "does_not_commute", "too_many_requests"),
     },
   },
 ];

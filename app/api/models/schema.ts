@@ -44,7 +44,7 @@ export const routes: RouteConfig[] = [
     responses: {
       201: jsonBody(CreatedModel, "Stored now."),
       200: jsonBody(CreatedModel, "Stored before: the existing record."),
-      ...errorResponses("bad_input", "unauthenticated", "forbidden", "too_large"),
+      ...errorResponses("bad_input", "unauthenticated", "forbidden", "too_large", "unsupported_media_type", "too_many_requests"),
     },
   },
 ];

@@ -30,7 +30,7 @@ export default async function TokensPage({ searchParams }: { searchParams: Promi
   const tokens = await listPersonalTokens({ userId: user.id, workspaceId: workspace.id });
   const roles = ROLES.filter((r) => isRoleWithin(r, role));
   return (
-    <div className="space-y-8">
+    <div className="mx-auto max-w-6xl space-y-8 px-5 py-8">
       <PageHeader
         eyebrow={`Settings · ${workspace.name}`}
         title="API tokens"
