@@ -11,6 +11,9 @@ import { PageHeader } from "@/components/atlas/page-header";
 import { RetractForm } from "@/components/atlas/retract-form";
 import { SquarePreview } from "@/components/atlas/square-preview";
 import { tikzSquare, type SquareInput } from "@/components/atlas/tikzSquare";
+import { HeatMap } from "@/components/atlas/heat-map";
+import { CommutingPictureView } from "@/components/spacetime/commuting-picture";
+import { pictureInputOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
 import { getCertificate, getMap, getModel } from "@/db/queries/atlas";
 import { getUserById } from "@/db/queries/users";
@@ -46,6 +49,8 @@ export default async function MapPage({ params }: Props) {
   const hex = certificate.address.replace(/^sha256:/, "");
   const square: SquareInput = { kind: map.kind, block: map.block, steps: map.steps, source, target, certificateAddress: certificate.address };
   const tikz = tikzSquare(square);
+  const picture = map.kind === "projection" ? pictureInputOf(certificate.body) : null;
+  const partition = map.kind === "lumping" ? partitionOf(certificate.body) : null;
   const bibtex = bibtexEntry({
     certificateAddress: certificate.address,
     claim: map.summary,
@@ -135,19 +140,14 @@ export default async function MapPage({ params }: Props) {
         </Panel>
       </div>
 
-      {source.kind === "markov" && target.kind === "markov" ? (
-        <Panel title="The two chains">
-          <div className="grid gap-6 md:grid-cols-2">
-            <div className="min-w-0">
-              <p className="mb-2 text-sm font-medium">{source.name}</p>
-              <CanonicalModel view={canonicalView(source.canonical)} />
-            </div>
-            <div className="min-w-0">
-              <p className="mb-2 text-sm font-medium">{target.name}</p>
-              <CanonicalModel view={canonicalView(target.canonical)} />
-            </div>
-          </div>
+      {picture ? (
+        <Panel title="The square on one row">
+          <CommutingPictureView {...picture} fineName={source.name} coarseName={target.name} />
         </Panel>
+      ) : null}
+
+      {source.kind === "markov" && target.kind === "markov" ? (
+        <ChainsPanel source={source} target={target} kind={map.kind} steps={map.steps} partition={partition} />
       ) : null}
 
       <Panel title="Certificate JSON">
@@ -164,5 +164,49 @@ export default async function MapPage({ params }: Props) {
         </Panel>
       ) : null}
     </div>
+  );
+}
+
+/** The lumping's partition from its certificate body (block[i] = block of state i), or null. */
+function partitionOf(body: string): number[] | null {
+  try {
+    const p = (JSON.parse(body) as { map?: { partition?: unknown } }).map?.partition;
+    return Array.isArray(p) && p.every((x) => Number.isInteger(x)) ? (p as number[]) : null;
+  } catch {
+    return null;
+  }
+}
+
+type ChainEnd = { name: string; canonical: string };
+
+/**
+ * Both chains as heat maps and exact matrices: a lumping outlines the partition's blocks on the
+ * fine matrix; a decimation shows P beside P^k.
+ */
+function ChainsPanel({ source, target, kind, steps, partition }: { source: ChainEnd; target: ChainEnd; kind: string; steps: number | null; partition: number[] | null }) {
+  const fine = canonicalView(source.canonical);
+  const coarse = canonicalView(target.canonical);
+  if (fine.type !== "markov" || coarse.type !== "markov") return null;
+  const k = steps && steps > 1 ? steps : null;
+  const fineCaption =
+    kind === "lumping"
+      ? `P of ${source.name}, states grouped by the partition's blocks (outlined)${k ? `; the lumping is of P^${k}` : ""}`
+      : `P of ${source.name}`;
+  const coarseCaption = kind === "lumping" ? `Q, the lumped chain: one state per block` : `P${k ? `^${k}` : ""}: ${k ?? 1} steps of P in one`;
+  return (
+    <Panel title={kind === "lumping" ? "The chain and its lumping" : "The chain and its decimation"}>
+      <div className="grid gap-6 md:grid-cols-2">
+        <div className="min-w-0 space-y-4">
+          <p className="text-sm font-medium">{source.name}</p>
+          <HeatMap labels={fine.labels} matrix={fine.matrix} partition={kind === "lumping" ? partition : null} caption={fineCaption} />
+          <CanonicalModel view={fine} />
+        </div>
+        <div className="min-w-0 space-y-4">
+          <p className="text-sm font-medium">{target.name}</p>
+          <HeatMap labels={coarse.labels} matrix={coarse.matrix} caption={coarseCaption} />
+          <CanonicalModel view={coarse} />
+        </div>
+      </div>
+    </Panel>
   );
 }

@@ -10,6 +10,8 @@ import { MapTable, type MapRow } from "@/components/atlas/map-table";
 import { parseTags } from "@/components/atlas/model-table";
 import { PageHeader } from "@/components/atlas/page-header";
 import { Skeleton } from "@/components/atlas/skeleton";
+import { SpaceTimeExplorer } from "@/components/spacetime/space-time-explorer";
+import { ruleViewOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
 import { WatchButton } from "@/components/watch-button";
 import { getModel, listMapsFrom, listMapsTo, listSearchRecords, type MapView } from "@/db/queries/atlas";
@@ -87,6 +89,8 @@ export default async function ModelPage({ params }: Props) {
   const base = model.baseModelId ? await getModel({ workspaceId: workspace.id, idOrAddress: model.baseModelId }) : null;
   const tags = parseTags(model.tags);
   const pretty = prettyJson(model.canonical);
+  const view = canonicalView(model.canonical);
+  const rule = ruleViewOf(view);
 
   const facts: [string, React.ReactNode][] = [
     ["Content address", <span key="a" className="break-all font-mono text-xs">{model.address}</span>],
@@ -159,7 +163,7 @@ export default async function ModelPage({ params }: Props) {
           </dl>
         </Panel>
         <Panel title="Canonical form">
-          <CanonicalModel view={canonicalView(model.canonical)} />
+          <CanonicalModel view={view} />
           <details className="mt-4">
             <summary className="cursor-pointer text-sm text-tide-700">Canonical JSON (RFC 8785 is applied to this for the address)</summary>
             <div className="mt-2">
@@ -168,6 +172,12 @@ export default async function ModelPage({ params }: Props) {
           </details>
         </Panel>
       </div>
+
+      {rule ? (
+        <Panel title="Space-time diagram">
+          <SpaceTimeExplorer rule={rule} name={model.name} />
+        </Panel>
+      ) : null}
 
       <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
         <Edges workspaceId={workspace.id} modelId={model.id} />

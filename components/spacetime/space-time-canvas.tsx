@@ -1,0 +1,59 @@
+"use client";
+
+import { useEffect, useRef } from "react";
+import type { SpaceTime } from "@/lib/ca";
+import { cellPalette, type Rgb } from "./palette";
+
+/**
+ * Draws a space-time diagram on a canvas, one canvas pixel per cell, scaled up by CSS without
+ * smoothing: row 0 at the top, time running downward.
+ */
+export function SpaceTimeCanvas({
+  diagram,
+  palette,
+  cellSize,
+  label,
+  className = "",
+}: {
+  diagram: SpaceTime;
+  palette?: Rgb[];
+  /** CSS pixels per cell; by default the canvas fills its container's width. */
+  cellSize?: number;
+  label: string;
+  className?: string;
+}) {
+  const ref = useRef<HTMLCanvasElement>(null);
+  useEffect(() => {
+    const canvas = ref.current;
+    const context = canvas?.getContext("2d");
+    if (!canvas || !context) return;
+    paint(context, diagram, palette ?? cellPalette(diagram.k));
+  }, [diagram, palette]);
+  const style = cellSize ? { width: diagram.width * cellSize, height: diagram.rows * cellSize } : { aspectRatio: `${diagram.width} / ${diagram.rows}` };
+  return (
+    <canvas
+      ref={ref}
+      width={diagram.width}
+      height={diagram.rows}
+      role="img"
+      aria-label={label}
+      style={style}
+      className={`block max-w-full border border-line [image-rendering:pixelated] ${cellSize ? "" : "w-full"} ${className}`}
+    />
+  );
+}
+
+/** Fills an ImageData in one pass (far faster than one fillRect per cell). */
+export function paint(context: CanvasRenderingContext2D, d: SpaceTime, palette: Rgb[]): void {
+  const image = context.createImageData(d.width, d.rows);
+  const px = image.data;
+  for (let i = 0; i < d.cells.length; i++) {
+    const c = palette[d.cells[i]] ?? palette[palette.length - 1];
+    const o = i * 4;
+    px[o] = c[0];
+    px[o + 1] = c[1];
+    px[o + 2] = c[2];
+    px[o + 3] = 255;
+  }
+  context.putImageData(image, 0, 0);
+}
