@@ -15,7 +15,10 @@ import { ruleViewOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
 import { WatchButton } from "@/components/watch-button";
 import { getModel, listMapsFrom, listMapsTo, listSearchRecords, type MapView } from "@/db/queries/atlas";
+import { can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
+import { ModelDetailsForm } from "@/components/atlas/model-details-form";
+import { updateModelDetailsAction } from "./actions";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -83,7 +86,7 @@ async function Searches({ workspaceId, modelId }: { workspaceId: string; modelId
 }
 
 export default async function ModelPage({ params }: Props) {
-  const [{ id }, { workspace }] = await Promise.all([params, getWorkspaceContext()]);
+  const [{ id }, { workspace, role }] = await Promise.all([params, getWorkspaceContext()]);
   const model = await getModel({ workspaceId: workspace.id, idOrAddress: decodeURIComponent(id) });
   if (!model) notFound();
   const base = model.baseModelId ? await getModel({ workspaceId: workspace.id, idOrAddress: model.baseModelId }) : null;
@@ -182,6 +185,17 @@ export default async function ModelPage({ params }: Props) {
       <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
         <Edges workspaceId={workspace.id} modelId={model.id} />
       </Suspense>
+
+      {can(role, "model:create") ? (
+        <Panel title="Name and description in this workspace">
+          <details>
+            <summary className="cursor-pointer text-sm text-tide-700">Edit the name and description</summary>
+            <div className="mt-3 max-w-xl">
+              <ModelDetailsForm action={updateModelDetailsAction.bind(null, model.id)} name={model.name} description={model.description} />
+            </div>
+          </details>
+        </Panel>
+      ) : null}
 
       <Panel title="Recorded searches">
         <Suspense fallback={<Skeleton lines={2} label="Loading searches" />}>
