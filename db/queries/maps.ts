@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, gt, inArray, ne, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import {
+  certificates,
   maps,
   models,
   notificationOutbox,
@@ -349,4 +350,84 @@ export async function retractMap({
   const view = await getMap({ db, workspaceId, mapId });
   if (!view) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: "id" });
   return view;
+}
+
+export type ModelMapRow = MapView & {
+  /** The map's defining data from its certificate: the projection or partition as JSON text, else null. */
+  definition: string | null;
+  /** Symmetry class of the model at the other end (ECAs only). */
+  otherClass: number | null;
+};
+
+export type ModelMapListOptions = {
+  db?: Executor;
+  workspaceId: string;
+  modelId: string;
+  direction: "from" | "to";
+  kind?: MapKind;
+  block?: number;
+  /** Symmetry class of the model at the other end. */
+  otherClass?: number;
+  /** Leave out maps whose other end is a constant ECA (rule 0 or 255); they are counted instead. */
+  hideConstant?: boolean;
+  limit?: number;
+  cursor?: string | null;
+};
+
+const CONSTANT_RULES = [0, 255];
+
+/**
+ * One page of a model's "coarse-grains onto" (direction from) or "coarse-grained from" (to) list,
+ * retracted maps included, in a stable order (the other end's rule number, then name, then map id),
+ * with the filters a model page offers and each map's projection or partition.
+ */
+export async function listModelMaps(options: ModelMapListOptions): Promise<{ items: ModelMapRow[]; nextCursor: string | null; total: number; constant: number }> {
+  const { db = getDatabase(), workspaceId, modelId, direction, kind, block, otherClass, hideConstant = false, limit = 20, cursor } = options;
+  return withDb("listing a model's maps", async () => {
+    const other = direction === "from" ? targetModel : sourceModel;
+    const base: SQL[] = [eq(maps.workspaceId, workspaceId), eq(direction === "from" ? maps.sourceModelId : maps.targetModelId, modelId)];
+    if (kind) base.push(eq(maps.kind, kind));
+    if (block !== undefined) base.push(eq(maps.block, block));
+    if (otherClass !== undefined) base.push(eq(other.symmetryClass, otherClass));
+    const isConstant = and(eq(other.kind, "eca"), inArray(other.rule, CONSTANT_RULES))!;
+    const orderKey = sql`coalesce(${other.rule}, 1000)`;
+    const listed = [...base];
+    if (hideConstant) listed.push(sql`NOT (${isConstant})`);
+    const counted = await db
+      .select({ total: sql<number>`count(*)`, constant: sql<number>`coalesce(sum(CASE WHEN ${isConstant} THEN 1 ELSE 0 END), 0)` })
+      .from(maps)
+      .innerJoin(sourceModel, eq(sourceModel.id, maps.sourceModelId))
+      .innerJoin(targetModel, eq(targetModel.id, maps.targetModelId))
+      .where(and(...base))
+      .get();
+    if (cursor) {
+      const [rule, name, id] = decodeCursor(cursor, 3);
+      listed.push(sql`(${orderKey}, ${other.name}, ${maps.id}) > (${Number(rule)}, ${String(name)}, ${String(id)})`);
+    }
+    const rows = await db
+      .select({
+        map: maps,
+        source: { id: sourceModel.id, address: sourceModel.address, kind: sourceModel.kind, name: sourceModel.name, rule: sourceModel.rule },
+        target: { id: targetModel.id, address: targetModel.address, kind: targetModel.kind, name: targetModel.name, rule: targetModel.rule },
+        otherClass: other.symmetryClass,
+        definition: sql<string | null>`coalesce(json_extract(${certificates.body}, '$.map.projection'), json_extract(${certificates.body}, '$.map.partition'))`,
+      })
+      .from(maps)
+      .innerJoin(sourceModel, eq(sourceModel.id, maps.sourceModelId))
+      .innerJoin(targetModel, eq(targetModel.id, maps.targetModelId))
+      .innerJoin(certificates, eq(certificates.address, maps.certificateAddress))
+      .where(and(...listed))
+      .orderBy(orderKey, asc(other.name), asc(maps.id))
+      .limit(limit + 1)
+      .all();
+    const items = rows.slice(0, limit).map((r) => ({ ...toView(r), definition: r.definition, otherClass: r.otherClass }));
+    const last = items[items.length - 1];
+    const lastOther = last ? (direction === "from" ? last.target : last.source) : null;
+    return {
+      items,
+      nextCursor: rows.length > limit && last && lastOther ? encodeCursor([lastOther.rule ?? 1000, lastOther.name, last.id]) : null,
+      total: counted?.total ?? 0,
+      constant: counted?.constant ?? 0,
+    };
+  });
 }

@@ -14,13 +14,16 @@ import { SpaceTimeExplorer } from "@/components/spacetime/space-time-explorer";
 import { ruleViewOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
 import { WatchButton } from "@/components/watch-button";
-import { getModel, listMapsFrom, listMapsTo, listSearchRecords, type MapView } from "@/db/queries/atlas";
+import { getModel, listSearchRecords, type MapKind } from "@/db/queries/atlas";
+import { listModelMaps, type ModelMapRow } from "@/db/queries/maps";
+import { MAP_KINDS } from "@/db/schema";
+import { modelMapsHref, parseModelMapFilters, type ListSide, type ModelMapFilters } from "@/components/atlas/modelMapFilters";
 import { can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
 import { ModelDetailsForm } from "@/components/atlas/model-details-form";
 import { updateModelDetailsAction } from "./actions";
 
-type Props = { params: Promise<{ id: string }> };
+type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const [{ id }, { workspace }] = await Promise.all([params, getWorkspaceContext()]);
@@ -28,7 +31,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: model?.name ?? "Model" };
 }
 
-function rowsOf(items: MapView[], end: "source" | "target"): MapRow[] {
+function rowsOf(items: ModelMapRow[], end: "source" | "target"): MapRow[] {
   return items.map((m) => ({
     id: m.id,
     kind: m.kind,
@@ -37,27 +40,143 @@ function rowsOf(items: MapView[], end: "source" | "target"): MapRow[] {
     summary: m.summary,
     status: m.status,
     derivation: m.derivation,
+    definition: m.definition,
     other: { id: m[end].id, name: m[end].name },
   }));
 }
 
-async function Edges({ workspaceId, modelId }: { workspaceId: string; modelId: string }) {
-  const [from, to] = await Promise.all([
-    listMapsFrom({ workspaceId, modelId, includeRetracted: true, limit: 200 }),
-    listMapsTo({ workspaceId, modelId, includeRetracted: true, limit: 200 }),
-  ]);
-  const more = (next: string | null) =>
-    next ? <p className="mt-2 text-xs text-ink-faint">Showing the first 200; search the atlas for the rest.</p> : null;
+const PAGE = 20;
+
+function isCursor(text: string): boolean {
+  try {
+    const key: unknown = JSON.parse(Buffer.from(text, "base64url").toString("utf8"));
+    return Array.isArray(key) && key.length === 3;
+  } catch {
+    return false;
+  }
+}
+
+async function MapList({ workspaceId, model, side, filters }: { workspaceId: string; model: { id: string; rule: number | null }; side: ListSide; filters: ModelMapFilters }) {
+  const f = filters[side];
+  const direction = side === "o" ? "from" : "to";
+  // Nearly every rule coarse-grains onto the constant rules 0 and 255: one line for them unless asked.
+  const hideConstant = side === "o" && !f.constants;
+  const list = await listModelMaps({
+    workspaceId,
+    // A cursor this server did not give out is dropped: the list starts again at its first page.
+    cursor: f.cursor && isCursor(f.cursor) ? f.cursor : undefined,
+    modelId: model.id,
+    direction,
+    kind: f.kind as MapKind | undefined,
+    block: f.block,
+    otherClass: f.cls,
+    hideConstant,
+    limit: PAGE,
+  });
+  const path = `/atlas/models/${model.id}`;
+  const title = side === "o" ? "Coarse-grains onto" : "Coarse-grained from";
+  const filtered = f.kind || f.block !== undefined || f.cls !== undefined;
+  return (
+    <Panel title={`${title} (${list.total})`}>
+      <div id={`maps-${side}`} className="space-y-3">
+        <MapListFilters path={path} side={side} filters={filters} />
+        {hideConstant && list.constant > 0 ? (
+          <p className="rounded-md bg-paper px-3 py-2 text-sm text-ink-soft">
+            onto the constant rules (ECA 0, ECA 255): {list.constant} map{list.constant === 1 ? "" : "s"}{" "}
+            <Link href={modelMapsHref(path, filters, side, { ...f, constants: true, cursor: undefined })} className="text-tide-700 underline-offset-2 hover:underline">
+              show them
+            </Link>
+          </p>
+        ) : null}
+        <MapTable
+          rows={rowsOf(list.items, side === "o" ? "target" : "source")}
+          otherHeading={side === "o" ? "Target" : "Source"}
+          empty={
+            filtered
+              ? "No map matches these filters; clear them to see every map."
+              : side === "o"
+                ? "No certified map starts at this model yet. Ask what it coarse-grains onto to start a search."
+                : "No certified map ends at this model yet."
+          }
+        />
+        {side === "o" && f.constants && list.constant > 0 ? (
+          <Link href={modelMapsHref(path, filters, side, { ...f, constants: false, cursor: undefined })} className="text-xs text-tide-700 underline-offset-2 hover:underline">
+            Fold the maps onto constant rules into one line
+          </Link>
+        ) : null}
+        {f.cursor || list.nextCursor ? (
+          <nav aria-label={`${title}: pages`} className="flex items-center justify-between border-t border-line pt-3 text-sm">
+            {f.cursor ? (
+              <Link href={modelMapsHref(path, filters, side, { ...f, cursor: undefined })} className="text-ink-soft underline-offset-2 hover:underline">
+                ← First page
+              </Link>
+            ) : (
+              <span />
+            )}
+            {list.nextCursor ? (
+              <Link href={modelMapsHref(path, filters, side, { ...f, cursor: list.nextCursor })} className="font-medium text-ink underline-offset-2 hover:underline">
+                Next {PAGE} →
+              </Link>
+            ) : null}
+          </nav>
+        ) : null}
+      </div>
+    </Panel>
+  );
+}
+
+function MapListFilters({ path, side, filters }: { path: string; side: ListSide; filters: ModelMapFilters }) {
+  const f = filters[side];
+  const other = side === "o" ? "f" : "o";
+  const keep = filters[other];
+  const select = "rounded-md border border-line-strong bg-paper-raised px-2 py-1 text-sm";
+  return (
+    <form action={`${path}#maps-${side}`} className="flex flex-wrap items-end gap-2 text-sm">
+      {keep.kind ? <input type="hidden" name={`${other}kind`} value={keep.kind} /> : null}
+      {keep.block !== undefined ? <input type="hidden" name={`${other}block`} value={keep.block} /> : null}
+      {keep.cls !== undefined ? <input type="hidden" name={`${other}class`} value={keep.cls} /> : null}
+      {keep.constants ? <input type="hidden" name={`${other}const`} value="1" /> : null}
+      {f.constants ? <input type="hidden" name={`${side}const`} value="1" /> : null}
+      <label className="flex flex-col gap-0.5 text-xs text-ink-faint">
+        Kind
+        <select name={`${side}kind`} defaultValue={f.kind ?? ""} className={select}>
+          <option value="">any</option>
+          {MAP_KINDS.map((k) => (
+            <option key={k} value={k}>
+              {k}
+            </option>
+          ))}
+        </select>
+      </label>
+      <label className="flex flex-col gap-0.5 text-xs text-ink-faint">
+        Block size N
+        <input name={`${side}block`} defaultValue={f.block ?? ""} inputMode="numeric" className={`${select} w-20`} />
+      </label>
+      <label className="flex flex-col gap-0.5 text-xs text-ink-faint" title="Rules equivalent under left–right reflection and 0↔1 exchange, named by the smallest rule">
+        {side === "o" ? "Target" : "Source"} symmetry class
+        <input name={`${side}class`} defaultValue={f.cls ?? ""} inputMode="numeric" className={`${select} w-24`} />
+      </label>
+      <button type="submit" className="rounded-md px-3 py-1 font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
+        Filter
+      </button>
+      {f.kind || f.block !== undefined || f.cls !== undefined ? (
+        <Link href={modelMapsHref(path, filters, side, { constants: f.constants })} className="px-1 py-1 text-xs text-ink-faint underline-offset-2 hover:underline">
+          clear
+        </Link>
+      ) : null}
+    </form>
+  );
+}
+
+function Edges({ workspaceId, model, filters }: { workspaceId: string; model: { id: string; rule: number | null }; filters: ModelMapFilters }) {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
-      <Panel title={`Coarse-grains onto (${from.items.length}${from.nextCursor ? "+" : ""})`}>
-        <MapTable rows={rowsOf(from.items, "target")} otherHeading="Target" empty="No certified map starts at this model yet." />
-        {more(from.nextCursor)}
-      </Panel>
-      <Panel title={`Coarse-grained from (${to.items.length}${to.nextCursor ? "+" : ""})`}>
-        <MapTable rows={rowsOf(to.items, "source")} otherHeading="Source" empty="No certified map ends at this model yet." />
-        {more(to.nextCursor)}
-      </Panel>
+      <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
+        <MapList workspaceId={workspaceId} model={model} side="o" filters={filters} />
+      </Suspense>
+      <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
+        <MapList workspaceId={workspaceId} model={model} side="f" filters={filters} />
+      </Suspense>
     </div>
   );
 }
@@ -85,8 +204,9 @@ async function Searches({ workspaceId, modelId }: { workspaceId: string; modelId
   );
 }
 
-export default async function ModelPage({ params }: Props) {
-  const [{ id }, { workspace, role }] = await Promise.all([params, getWorkspaceContext()]);
+export default async function ModelPage({ params, searchParams }: Props) {
+  const [{ id }, { workspace, role }, query] = await Promise.all([params, getWorkspaceContext(), searchParams]);
+  const filters = parseModelMapFilters(query, MAP_KINDS);
   const model = await getModel({ workspaceId: workspace.id, idOrAddress: decodeURIComponent(id) });
   if (!model) notFound();
   const base = model.baseModelId ? await getModel({ workspaceId: workspace.id, idOrAddress: model.baseModelId }) : null;
@@ -182,9 +302,7 @@ export default async function ModelPage({ params }: Props) {
         </Panel>
       ) : null}
 
-      <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
-        <Edges workspaceId={workspace.id} modelId={model.id} />
-      </Suspense>
+      <Edges workspaceId={workspace.id} model={model} filters={filters} />
 
       {can(role, "model:create") ? (
         <Panel title="Name and description in this workspace">
