@@ -42,8 +42,14 @@ export function CommutingPictureView({
   const palette = cellPalette(coarse.k);
   const panels = [
     {
+      title: "Fine",
+      note: `${fineName} on ${n(WIDTH * block)} cells, ${n(picture.fine.rows - 1)} steps`,
+      diagram: picture.fine,
+      palette: cellPalette(fine.k),
+    },
+    {
       title: "Fine, projected",
-      note: `${fineName} on ${n(WIDTH * block)} cells, every ${steps === 1 ? "step" : `${steps}th step`}, each block of ${block} cells replaced by its coarse symbol`,
+      note: `the fine rows sampled every T = ${steps} steps, each block of ${block} cells replaced by its coarse symbol`,
       diagram: picture.projected,
       palette,
     },
@@ -52,7 +58,7 @@ export function CommutingPictureView({
   ];
   return (
     <div className="space-y-3">
-      <div className="grid gap-4 sm:grid-cols-3">
+      <div className="grid grid-cols-2 gap-4 lg:grid-cols-4">
         {panels.map((p) => (
           <figure key={p.title} className="min-w-0">
             <figcaption className="mb-1 text-sm font-medium">{p.title}</figcaption>

@@ -29,7 +29,10 @@ export function SpaceTimeCanvas({
     if (!canvas || !context) return;
     paint(context, diagram, palette ?? cellPalette(diagram.k));
   }, [diagram, palette]);
-  const style = cellSize ? { width: diagram.width * cellSize, height: diagram.rows * cellSize } : { aspectRatio: `${diagram.width} / ${diagram.rows}` };
+  // Without a cell size the canvas fills its container's width, but never taller than 70% of the screen.
+  const style = cellSize
+    ? { width: diagram.width * cellSize, height: diagram.rows * cellSize }
+    : { aspectRatio: `${diagram.width} / ${diagram.rows}`, maxWidth: `min(100%, calc(70vh * ${diagram.width} / ${diagram.rows}))` };
   return (
     <canvas
       ref={ref}

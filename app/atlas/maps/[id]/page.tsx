@@ -85,7 +85,7 @@ export default async function MapPage({ params }: Props) {
             </Link>
           </span>
         }
-        lead={map.summary}
+        lead={leadOf(map.summary, source.name, target.name)}
         actions={
           <DownloadJson json={certificate.body} filename={`certificate-${hex.slice(0, 12)}.json`}>
             Download certificate (JSON)
@@ -209,4 +209,10 @@ function ChainsPanel({ source, target, kind, steps, partition }: { source: Chain
       </div>
     </Panel>
   );
+}
+
+/** The stored summary ("ECA 146 → ECA 128: projection at block 3, 3 steps") with the models' current names. */
+function leadOf(summary: string, sourceName: string, targetName: string): string {
+  const at = summary.indexOf(": ");
+  return at < 0 ? summary : `${sourceName} → ${targetName}: ${summary.slice(at + 2)}`;
 }
