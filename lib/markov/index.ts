@@ -7,3 +7,5 @@ export { canonicalPartition, blockCount } from "./canonicalPartition";
 export { checkLumping } from "./checkLumping";
 export type { LumpingCheck, LumpingCounterexample } from "./checkLumping";
 export { parseCsvMatrix, parseMatrixMarket } from "./parseMatrix";
+export { stationaryDistributions, communicatingClasses, applyRow } from "./stationaryDistributions";
+export type { StationaryClass, StationaryResult } from "./stationaryDistributions";

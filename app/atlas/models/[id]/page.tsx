@@ -21,7 +21,10 @@ import { modelMapsHref, parseModelMapFilters, type ListSide, type ModelMapFilter
 import { can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
 import { ModelDetailsForm } from "@/components/atlas/model-details-form";
-import { updateModelDetailsAction } from "./actions";
+import { findLumpingAction, updateModelDetailsAction } from "./actions";
+import { HeatMap } from "@/components/atlas/heat-map";
+import { LumpRequestForm } from "@/components/atlas/lump-request-form";
+import { StationaryView } from "@/components/atlas/stationary-view";
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -299,6 +302,26 @@ export default async function ModelPage({ params, searchParams }: Props) {
       {rule ? (
         <Panel title="Space-time diagram">
           <SpaceTimeExplorer rule={rule} name={model.name} />
+        </Panel>
+      ) : null}
+
+      {view.type === "markov" ? (
+        <div className="grid gap-6 lg:grid-cols-2">
+          <Panel title="Transition matrix as a heat map">
+            <HeatMap labels={view.labels} matrix={view.matrix} caption="Darker is more likely; hover a cell for its exact value (row = from, column = to)." />
+          </Panel>
+          <Panel title="Stationary distributions (exact)">
+            <StationaryView labels={view.labels} matrix={view.matrix} />
+          </Panel>
+        </div>
+      ) : null}
+
+      {view.type === "markov" && can(role, "job:create") ? (
+        <Panel title="Find the coarsest lumping keeping states apart">
+          <p className="mb-3 text-sm text-ink-soft">
+            Starts a job that finds the coarsest strong lumping (Kemeny &amp; Snell 1960, §6.3) in which the ticked states stay in different blocks, and certifies it.
+          </p>
+          <LumpRequestForm action={findLumpingAction.bind(null, model.id)} labels={view.labels} />
         </Panel>
       ) : null}
 
