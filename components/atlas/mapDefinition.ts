@@ -44,7 +44,7 @@ export function describePartition(partition: number[], labels?: string[]): MapDe
 }
 
 /** A map's definition from the JSON text of its certificate's projection or partition. */
-export function describeDefinition(kind: string, definition: string | null, block: number | null): MapDefinition | null {
+export function describeDefinition(kind: string, definition: string | null, block: number | null, labels?: string[]): MapDefinition | null {
   if (!definition) return null;
   let value: unknown;
   try {
@@ -53,6 +53,6 @@ export function describeDefinition(kind: string, definition: string | null, bloc
     return null;
   }
   if (!Array.isArray(value) || !value.every((v) => Number.isInteger(v))) return null;
-  if (kind === "lumping") return describePartition(value as number[]);
+  if (kind === "lumping") return describePartition(value as number[], labels);
   return describeProjection(value as number[], block);
 }

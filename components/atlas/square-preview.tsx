@@ -19,7 +19,10 @@ export function SquarePreview({ input }: { input: SquareInput }) {
   if (!cd) return <p className="text-sm text-ink-faint">This square has no preview; its tikz-cd source is below.</p>;
   return (
     <figure aria-label="Commuting square" className="max-w-full overflow-x-auto text-ink">
-      <Formula tex={cd} display />
+      {/* KaTeX sets the side labels of CD's vertical arrows outside the box: room on both sides keeps them visible. */}
+      <div className="inline-block px-16 py-1">
+        <Formula tex={cd} display />
+      </div>
     </figure>
   );
 }

@@ -59,7 +59,7 @@ function isCursor(text: string): boolean {
   }
 }
 
-async function MapList({ workspaceId, model, side, filters }: { workspaceId: string; model: { id: string; rule: number | null }; side: ListSide; filters: ModelMapFilters }) {
+async function MapList({ workspaceId, model, side, filters, labels }: { workspaceId: string; model: { id: string; rule: number | null }; side: ListSide; filters: ModelMapFilters; labels?: string[] }) {
   const f = filters[side];
   const direction = side === "o" ? "from" : "to";
   // Nearly every rule coarse-grains onto the constant rules 0 and 255: one line for them unless asked.
@@ -82,7 +82,7 @@ async function MapList({ workspaceId, model, side, filters }: { workspaceId: str
   return (
     <Panel title={`${title} (${list.total})`}>
       <div id={`maps-${side}`} className="space-y-3">
-        <MapListFilters path={path} side={side} filters={filters} />
+        <MapListFilters path={path} side={side} filters={filters} classes={model.rule !== null} />
         {hideConstant && list.constant > 0 ? (
           <p className="rounded-md bg-paper px-3 py-2 text-sm text-ink-soft">
             onto the constant rules (ECA 0, ECA 255): {list.constant} map{list.constant === 1 ? "" : "s"}{" "}
@@ -93,10 +93,13 @@ async function MapList({ workspaceId, model, side, filters }: { workspaceId: str
         ) : null}
         <MapTable
           rows={rowsOf(list.items, side === "o" ? "target" : "source")}
+          labels={side === "o" ? labels : undefined}
           otherHeading={side === "o" ? "Target" : "Source"}
           empty={
             filtered
               ? "No map matches these filters; clear them to see every map."
+              : list.constant > 0
+                ? "Every map from this model goes onto a constant rule (folded above)."
               : side === "o"
                 ? "No certified map starts at this model yet. Ask what it coarse-grains onto to start a search."
                 : "No certified map ends at this model yet."
@@ -128,7 +131,7 @@ async function MapList({ workspaceId, model, side, filters }: { workspaceId: str
   );
 }
 
-function MapListFilters({ path, side, filters }: { path: string; side: ListSide; filters: ModelMapFilters }) {
+function MapListFilters({ path, side, filters, classes }: { path: string; side: ListSide; filters: ModelMapFilters; classes: boolean }) {
   const f = filters[side];
   const other = side === "o" ? "f" : "o";
   const keep = filters[other];
@@ -155,10 +158,12 @@ function MapListFilters({ path, side, filters }: { path: string; side: ListSide;
         Block size N
         <input name={`${side}block`} defaultValue={f.block ?? ""} inputMode="numeric" className={`${select} w-20`} />
       </label>
-      <label className="flex flex-col gap-0.5 text-xs text-ink-faint" title="Rules equivalent under left–right reflection and 0↔1 exchange, named by the smallest rule">
-        {side === "o" ? "Target" : "Source"} symmetry class
-        <input name={`${side}class`} defaultValue={f.cls ?? ""} inputMode="numeric" className={`${select} w-24`} />
-      </label>
+      {classes ? (
+        <label className="flex flex-col gap-0.5 text-xs text-ink-faint" title="Rules equivalent under left–right reflection and 0↔1 exchange, named by the smallest rule">
+          {side === "o" ? "Target" : "Source"} symmetry class
+          <input name={`${side}class`} defaultValue={f.cls ?? ""} inputMode="numeric" className={`${select} w-24`} />
+        </label>
+      ) : null}
       <button type="submit" className="rounded-md px-3 py-1 font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
         Filter
       </button>
@@ -171,11 +176,11 @@ function MapListFilters({ path, side, filters }: { path: string; side: ListSide;
   );
 }
 
-function Edges({ workspaceId, model, filters }: { workspaceId: string; model: { id: string; rule: number | null }; filters: ModelMapFilters }) {
+function Edges({ workspaceId, model, filters, labels }: { workspaceId: string; model: { id: string; rule: number | null }; filters: ModelMapFilters; labels?: string[] }) {
   return (
     <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
       <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
-        <MapList workspaceId={workspaceId} model={model} side="o" filters={filters} />
+        <MapList workspaceId={workspaceId} model={model} side="o" filters={filters} labels={labels} />
       </Suspense>
       <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
         <MapList workspaceId={workspaceId} model={model} side="f" filters={filters} />
@@ -325,7 +330,7 @@ export default async function ModelPage({ params, searchParams }: Props) {
         </Panel>
       ) : null}
 
-      <Edges workspaceId={workspace.id} model={model} filters={filters} />
+      <Edges workspaceId={workspace.id} model={model} filters={filters} labels={view.type === "markov" ? view.labels : undefined} />
 
       {can(role, "model:create") ? (
         <Panel title="Name and description in this workspace">
