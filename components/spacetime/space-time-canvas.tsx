@@ -2,6 +2,7 @@
 
 import { useEffect, useRef } from "react";
 import type { SpaceTime } from "@/lib/ca";
+import { paint } from "./paint";
 import { cellPalette, type Rgb } from "./palette";
 
 /**
@@ -44,19 +45,4 @@ export function SpaceTimeCanvas({
       className={`block max-w-full border border-line [image-rendering:pixelated] ${cellSize ? "" : "w-full"} ${className}`}
     />
   );
-}
-
-/** Fills an ImageData in one pass (far faster than one fillRect per cell). */
-export function paint(context: CanvasRenderingContext2D, d: SpaceTime, palette: Rgb[]): void {
-  const image = context.createImageData(d.width, d.rows);
-  const px = image.data;
-  for (let i = 0; i < d.cells.length; i++) {
-    const c = palette[d.cells[i]] ?? palette[palette.length - 1];
-    const o = i * 4;
-    px[o] = c[0];
-    px[o + 1] = c[1];
-    px[o + 2] = c[2];
-    px[o + 3] = 255;
-  }
-  context.putImageData(image, 0, 0);
 }
