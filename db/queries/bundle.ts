@@ -89,7 +89,7 @@ export async function readWorkspaceContents({ db = getDatabase(), workspaceId }:
       .from(searchRecords)
       .innerJoin(models, eq(models.id, searchRecords.modelId))
       .where(eq(searchRecords.workspaceId, workspaceId))
-      .orderBy(asc(models.address), asc(searchRecords.kind), asc(searchRecords.createdAt))
+      .orderBy(asc(models.address), asc(searchRecords.kind), asc(searchRecords.algorithm), asc(searchRecords.coverage), asc(searchRecords.outcome), asc(searchRecords.createdAt))
       .all();
     return {
       models: modelRows,
@@ -112,6 +112,13 @@ export async function isWorkspaceEmpty({ db = getDatabase(), workspaceId }: { db
     const n = await db.select({ n: sql<number>`count(*)` }).from(models).where(eq(models.workspaceId, workspaceId)).get();
     return (n?.n ?? 0) === 0;
   });
+}
+
+/** Rows in groups small enough for one multi-row INSERT (SQLite binds at most 32,766 parameters). */
+function chunks<T>(rows: T[], size = 100): T[][] {
+  const out: T[][] = [];
+  for (let i = 0; i < rows.length; i += size) out.push(rows.slice(i, i + size));
+  return out;
 }
 
 /** A certificate the server has just re-verified, with the fields the core derived from it. */
@@ -151,10 +158,10 @@ export async function writeWorkspaceImport(input: ImportInput): Promise<{ models
   return withDb("importing a workspace", () =>
     db.transaction(async (tx) => {
       const now = new Date();
-      for (const c of input.certificates.values()) {
+      for (const chunk of chunks([...input.certificates.values()])) {
         await tx
           .insert(certificates)
-          .values({ address: c.address, kind: c.kind, formatVersion: c.formatVersion, body: c.body, checkerVersion: c.checkerVersion, verifiedAt: now, createdBy: userId })
+          .values(chunk.map((c) => ({ address: c.address, kind: c.kind, formatVersion: c.formatVersion, body: c.body, checkerVersion: c.checkerVersion, verifiedAt: now, createdBy: userId })))
           .onConflictDoNothing();
       }
       const idOf = new Map<string, string>();
@@ -163,18 +170,44 @@ export async function writeWorkspaceImport(input: ImportInput): Promise<{ models
         idOf.set(model.address, model.id);
         return model;
       };
-      for (const m of input.models) {
+      // Plain models in bulk (the workspace is empty, so none exists yet); derived ones with their base, one by one.
+      for (const chunk of chunks(input.models.filter((m) => !m.fields.base))) {
+        const rows = await tx
+          .insert(models)
+          .values(
+            chunk.map(({ fields: f, name, description, tags }) => ({
+              workspaceId,
+              address: f.address,
+              kind: f.kind,
+              name,
+              description,
+              canonical: f.canonical,
+              rule: f.rule ?? null,
+              alphabet: f.alphabet ?? null,
+              radius: f.radius ?? null,
+              states: f.states ?? null,
+              block: f.block ?? null,
+              steps: f.steps ?? null,
+              symmetryClass: f.symmetryClass ?? null,
+              tags: JSON.stringify(tags),
+              createdBy: userId,
+            })),
+          )
+          .onConflictDoNothing({ target: [models.workspaceId, models.address] })
+          .returning({ id: models.id, address: models.address });
+        for (const r of rows) idOf.set(r.address, r.id);
+      }
+      for (const m of input.models.filter((x) => x.fields.base)) {
         const row = await store(m.fields);
         await tx.update(models).set({ name: m.name, description: m.description, tags: JSON.stringify(m.tags) }).where(eq(models.id, row.id));
       }
       const mapIdOf = new Map<string, string>();
+      const mapRows = [];
       for (const m of input.maps) {
         const c = input.certificates.get(m.certificateAddress)!;
         const source = idOf.get(c.source.address) ?? (await store(c.source)).id;
         const target = idOf.get(c.target.address) ?? (await store(c.target)).id;
-        const [row] = await tx
-          .insert(maps)
-          .values({
+        mapRows.push({
             workspaceId,
             sourceModelId: source,
             targetModelId: target,
@@ -188,9 +221,11 @@ export async function writeWorkspaceImport(input: ImportInput): Promise<{ models
             retractedReason: m.retractedReason,
             retractedAt: m.retractedAt,
             derivation: (m.derivation as "reflect" | "complement" | "reflect-complement" | null) ?? null,
-          })
-          .returning({ id: maps.id });
-        mapIdOf.set(c.address, row.id);
+        });
+      }
+      for (const chunk of chunks(mapRows)) {
+        const rows = await tx.insert(maps).values(chunk).returning({ id: maps.id, address: maps.certificateAddress });
+        for (const r of rows) mapIdOf.set(r.address, r.id);
       }
       for (const m of input.maps) {
         if (!m.derivedFromCertificate) continue;
@@ -206,11 +241,11 @@ export async function writeWorkspaceImport(input: ImportInput): Promise<{ models
           .returning({ id: chains.id });
         await tx.insert(chainLinks).values(ch.links.map((address, position) => ({ chainId: row.id, position, mapId: mapIdOf.get(address)! })));
       }
-      for (const r of input.searchRecords) {
+      const recordRows = input.searchRecords.flatMap((r) => {
         const modelId = idOf.get(r.modelAddress);
-        if (!modelId) continue;
-        await tx.insert(searchRecords).values({ workspaceId, modelId, kind: r.kind, maxBlock: r.maxBlock, algorithm: r.algorithm, algorithmVersion: r.algorithmVersion, coverage: r.coverage, outcome: r.outcome, found: r.found, createdBy: userId });
-      }
+        return modelId ? [{ workspaceId, modelId, kind: r.kind, maxBlock: r.maxBlock, algorithm: r.algorithm, algorithmVersion: r.algorithmVersion, coverage: r.coverage, outcome: r.outcome, found: r.found, createdBy: userId }] : [];
+      });
+      for (const chunk of chunks(recordRows)) await tx.insert(searchRecords).values(chunk);
       await recordAuditEvent({
         db: tx,
         workspaceId,

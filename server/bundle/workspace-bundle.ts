@@ -80,6 +80,15 @@ async function modelFieldsOf(model: Record<string, unknown>, claimed: string, in
   return outcome.fields;
 }
 
+/** Runs the checks a batch at a time so that every verification worker thread has work; results in input order, first failure thrown. */
+async function inBatches<T, R>(items: T[], f: (item: T, index: number) => Promise<R>, size = 16): Promise<R[]> {
+  const out: R[] = [];
+  for (let start = 0; start < items.length; start += size) {
+    out.push(...(await Promise.all(items.slice(start, start + size).map((item, j) => f(item, start + j)))));
+  }
+  return out;
+}
+
 export type CheckedBundle = Omit<ImportInput, "db" | "workspaceId" | "userId">;
 
 /**
@@ -89,12 +98,8 @@ export type CheckedBundle = Omit<ImportInput, "db" | "workspaceId" | "userId">;
  */
 export async function verifyBundle(bundle: WorkspaceBundle): Promise<CheckedBundle> {
   const verified = new Map<string, ImportCertificate>();
-  for (const [i, certificate] of bundle.certificates.entries()) {
-    const v = await verifyOne(certificate, i);
-    verified.set(v.address, v);
-  }
-  const models = [];
-  for (const [i, m] of bundle.models.entries()) models.push({ fields: await modelFieldsOf(m.model, m.address, i), name: m.name, description: m.description, tags: m.tags });
+  for (const v of await inBatches(bundle.certificates, (certificate, i) => verifyOne(certificate, i))) verified.set(v.address, v);
+  const models = await inBatches(bundle.models, async (m, i) => ({ fields: await modelFieldsOf(m.model, m.address, i), name: m.name, description: m.description, tags: m.tags }));
   const knownModels = new Set(models.map((m) => m.fields.address));
   const need = (address: string, field: string) => {
     if (!verified.has(address)) throw new AppError("bad_input", `${field} refers to the certificate ${address}, which is not among the bundle's certificates.`, { field });
