@@ -12,7 +12,7 @@ export function HeatMap({ labels, matrix, partition = null, caption }: { labels:
     <figure className="min-w-0">
       <figcaption className="mb-2 text-xs text-ink-faint">{caption}</figcaption>
       <div className="overflow-x-auto">
-        <table className="border-collapse font-mono text-[11px]">
+        <table className="border-collapse text-[11px]">
           <thead>
             <tr>
               <th />
@@ -35,7 +35,7 @@ export function HeatMap({ labels, matrix, partition = null, caption }: { labels:
                     <td
                       key={j}
                       title={`${labels[i]} → ${labels[j]}: ${matrix[i][j]}`}
-                      className={`h-9 min-w-9 text-center ${p > 0.45 ? "text-paper-raised" : "text-ink-soft"}`}
+                      className={`h-9 min-w-9 text-center font-mono ${p > 0.45 ? "text-paper-raised" : "text-ink-soft"}`}
                       style={{
                         backgroundColor: `color-mix(in oklab, var(--color-tide-700) ${Math.round(p * 100)}%, var(--color-paper-raised))`,
                         borderRight: edge(col),

@@ -12,6 +12,8 @@ import { RetractForm } from "@/components/atlas/retract-form";
 import { SquarePreview } from "@/components/atlas/square-preview";
 import { tikzSquare, type SquareInput } from "@/components/atlas/tikzSquare";
 import { HeatMap } from "@/components/atlas/heat-map";
+import { formatDate } from "@/components/atlas/formatDate";
+import { guaranteeOf } from "@/components/atlas/guarantee";
 import { CommutingPictureView } from "@/components/spacetime/commuting-picture";
 import { pictureInputOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
@@ -30,7 +32,7 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: map ? `${map.source.name} → ${map.target.name}` : "Map" };
 }
 
-const when = (d: Date) => `${d.toISOString().slice(0, 19).replace("T", " ")} UTC`;
+const when = formatDate;
 
 export default async function MapPage({ params }: Props) {
   const [{ id }, { workspace, role }] = await Promise.all([params, getWorkspaceContext()]);
@@ -140,6 +142,10 @@ export default async function MapPage({ params }: Props) {
         </Panel>
       </div>
 
+      <Panel title="What this certificate guarantees">
+        <GuaranteeText kind={map.kind} block={map.block} steps={map.steps} filename={`certificate-${hex.slice(0, 12)}.json`} />
+      </Panel>
+
       {picture ? (
         <Panel title="The square on one row">
           <CommutingPictureView {...picture} fineName={source.name} coarseName={target.name} />
@@ -215,4 +221,25 @@ function ChainsPanel({ source, target, kind, steps, partition }: { source: Chain
 function leadOf(summary: string, sourceName: string, targetName: string): string {
   const at = summary.indexOf(": ");
   return at < 0 ? summary : `${sourceName} → ${targetName}: ${summary.slice(at + 2)}`;
+}
+
+/** The scope of the guarantee in plain words, and the one command that checks it again offline. */
+function GuaranteeText({ kind, block, steps, filename }: { kind: string; block: number | null; steps: number | null; filename: string }) {
+  const g = guaranteeOf(kind, block, steps);
+  return (
+    <div className="space-y-3 text-sm">
+      <p>
+        <span className="font-medium">It proves. </span>
+        {g.proves}
+      </p>
+      <p className="text-ink-soft">
+        <span className="font-medium text-ink">It does not prove. </span>
+        {g.doesNot}
+      </p>
+      <div>
+        <p className="mb-1 text-ink-soft">Check it yourself, offline, with the project&apos;s command-line verifier (prints the content address when the square commutes):</p>
+        <CopyBlock text={`npm run --silent cli -- verify ${filename}`} label="Command that re-verifies the certificate offline" wrap />
+      </div>
+    </div>
+  );
 }

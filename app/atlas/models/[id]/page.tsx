@@ -23,6 +23,7 @@ import { getWorkspaceContext } from "@/server/context";
 import { ModelDetailsForm } from "@/components/atlas/model-details-form";
 import { findLumpingAction, updateModelDetailsAction } from "./actions";
 import { HeatMap } from "@/components/atlas/heat-map";
+import { formatDate } from "@/components/atlas/formatDate";
 import { LumpRequestForm } from "@/components/atlas/lump-request-form";
 import { StationaryView } from "@/components/atlas/stationary-view";
 
@@ -198,14 +199,18 @@ async function Searches({ workspaceId, modelId }: { workspaceId: string; modelId
     <ul className="divide-y divide-line text-sm">
       {records.map((r) => (
         <li key={r.id} className="flex flex-wrap items-baseline gap-x-3 gap-y-1 py-2">
-          <span className="font-mono text-xs text-ink-soft">{r.kind}</span>
+          <span className="text-xs font-medium text-ink-soft">{r.kind.replace(/-/g, " ")}</span>
           <span>{r.maxBlock !== null ? <>block sizes up to N = {r.maxBlock}</> : "no block bound"}</span>
           <span className="text-ink-soft">
             {r.found} target{r.found === 1 ? "" : "s"} found
           </span>
-          <span className="ml-auto font-mono text-xs text-ink-faint">
-            {r.algorithm} {r.algorithmVersion} · {r.createdAt.toISOString().slice(0, 16).replace("T", " ")} UTC
-          </span>
+          <span className="ml-auto text-xs text-ink-faint">{formatDate(r.createdAt)}</span>
+          <details className="w-full text-xs text-ink-faint">
+            <summary className="cursor-pointer">How it searched</summary>
+            <p className="mt-1">
+              {r.algorithm} <span className="font-mono">({r.algorithmVersion})</span>
+            </p>
+          </details>
         </li>
       ))}
     </ul>
@@ -231,9 +236,12 @@ export default async function ModelPage({ params, searchParams }: Props) {
   if (model.symmetryClass !== null)
     facts.push([
       "Symmetry class",
-      <Link key="c" href={`/atlas?class=${model.symmetryClass}`} className="font-mono text-tide-800 underline-offset-2 hover:underline">
-        {model.symmetryClass}
-      </Link>,
+      <span key="c">
+        <Link href={`/atlas?class=${model.symmetryClass}`} className="font-mono text-tide-800 underline-offset-2 hover:underline">
+          {model.symmetryClass}
+        </Link>{" "}
+        <span className="text-xs text-ink-faint">— the rules equal to this one up to left–right reflection and 0↔1 exchange, named by the smallest</span>
+      </span>,
     ]);
   if (model.states !== null) facts.push(["States", <span key="s" className="font-mono">{model.states}</span>]);
   if (model.alphabet !== null) facts.push(["Alphabet k", <span key="k2" className="font-mono">{model.alphabet}</span>]);

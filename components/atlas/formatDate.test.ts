@@ -1,0 +1,9 @@
+import { describe, expect, it } from "vitest";
+import { formatDate } from "./formatDate";
+
+describe("formatDate", () => {
+  it("writes day, month, year and UTC time, whatever the server's zone", () => {
+    expect(formatDate(new Date("2026-12-03T10:36:45Z"))).toBe("3 Dec 2026, 10:36 UTC");
+    expect(formatDate(new Date("2027-01-09T23:05:00-02:00"))).toBe("10 Jan 2027, 01:05 UTC");
+  });
+});
