@@ -2,6 +2,7 @@ import "server-only";
 import { and, asc, eq, gt, inArray, ne, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import {
+  auditEvents,
   certificates,
   maps,
   models,
@@ -429,5 +430,46 @@ export async function listModelMaps(options: ModelMapListOptions): Promise<{ ite
       total: counted?.total ?? 0,
       constant: counted?.constant ?? 0,
     };
+  });
+}
+
+/** A recorded re-verification of a map's certificate: when, by whom, and what the checker said. */
+export type CertificateCheck = { at: Date; actorId: string | null; status: string; checkerVersion: string | null };
+
+/** Records one re-verification of a map's certificate (as an audit event of the map). */
+export async function recordCertificateCheck({
+  db = getDatabase(),
+  workspaceId,
+  mapId,
+  userId,
+  status,
+  checkerVersion,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  mapId: string;
+  userId: string;
+  status: string;
+  checkerVersion: string | null;
+}): Promise<void> {
+  await withDb("recording a re-verification", () =>
+    recordAuditEvent({ db, workspaceId, actorId: userId, action: "certificate:reverify", subjectType: "map", subjectId: mapId, detail: { status, checkerVersion } }),
+  );
+}
+
+/** The re-verifications of a map's certificate, newest first. */
+export async function listCertificateChecks({ db = getDatabase(), workspaceId, mapId }: { db?: Executor; workspaceId: string; mapId: string }): Promise<CertificateCheck[]> {
+  return withDb("reading re-verifications", async () => {
+    const rows = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.workspaceId, workspaceId), eq(auditEvents.subjectId, mapId), eq(auditEvents.action, "certificate:reverify")))
+      .orderBy(sql`${auditEvents.createdAt} DESC`)
+      .limit(10)
+      .all();
+    return rows.map((r) => {
+      const detail = JSON.parse(r.detail) as { status?: string; checkerVersion?: string | null };
+      return { at: r.createdAt, actorId: r.actorId, status: detail.status ?? "unknown", checkerVersion: detail.checkerVersion ?? null };
+    });
   });
 }

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createCertifiedEdge, setDatabase, type CertifiedEdgeInput } from "@/db/queries/atlas";
-import { listModelMaps } from "@/db/queries/maps";
+import { listCertificateChecks, listModelMaps, recordCertificateCheck } from "@/db/queries/maps";
 import { models } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { ecaFields, seedAtlasPeople } from "./atlas-fixtures";
@@ -78,5 +78,19 @@ describe("listModelMaps", () => {
   it("carries each map's projection from its certificate", async () => {
     const block3 = await listModelMaps({ workspaceId: ws, modelId: ids[30], direction: "from", otherClass: 90 });
     expect(JSON.parse(block3.items[0].definition!)).toEqual([0, 1, 1, 0]);
+  });
+});
+
+describe("certificate re-verification records", () => {
+  it("lists each recorded re-verification with its result, newest first", async () => {
+    const [map] = (await listModelMaps({ workspaceId: ws, modelId: ids[30], direction: "from", otherClass: 90 })).items;
+    expect(await listCertificateChecks({ workspaceId: ws, mapId: map.id })).toEqual([]);
+    await recordCertificateCheck({ workspaceId: ws, mapId: map.id, userId, status: "holds", checkerVersion: "squarely-checker/1" });
+    await new Promise((r) => setTimeout(r, 5));
+    await recordCertificateCheck({ workspaceId: ws, mapId: map.id, userId, status: "too-large", checkerVersion: null });
+    const checks = await listCertificateChecks({ workspaceId: ws, mapId: map.id });
+    expect(checks.map((c) => c.status)).toEqual(["too-large", "holds"]);
+    expect(checks[1]).toMatchObject({ actorId: userId, checkerVersion: "squarely-checker/1" });
+    expect(checks[0].at.getTime()).toBeGreaterThanOrEqual(checks[1].at.getTime());
   });
 });

@@ -22,7 +22,9 @@ import { getUserById } from "@/db/queries/users";
 import { env } from "@/env";
 import { can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
-import { retractMapAction } from "./actions";
+import { retractMapAction, reverifyMapAction } from "./actions";
+import { ReverifyForm } from "@/components/atlas/reverify-form";
+import { listCertificateChecks } from "@/db/queries/maps";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -38,13 +40,14 @@ export default async function MapPage({ params }: Props) {
   const [{ id }, { workspace, role }] = await Promise.all([params, getWorkspaceContext()]);
   const map = await getMap({ workspaceId: workspace.id, mapId: id });
   if (!map) notFound();
-  const [certificate, source, target, author, retractor, origin] = await Promise.all([
+  const [certificate, source, target, author, retractor, origin, checks] = await Promise.all([
     getCertificate({ address: map.certificateAddress }),
     getModel({ workspaceId: workspace.id, idOrAddress: map.sourceModelId }),
     getModel({ workspaceId: workspace.id, idOrAddress: map.targetModelId }),
     map.authorId ? getUserById({ id: map.authorId }) : null,
     map.retractedBy ? getUserById({ id: map.retractedBy }) : null,
     map.derivedFromMapId ? getMap({ workspaceId: workspace.id, mapId: map.derivedFromMapId }) : null,
+    listCertificateChecks({ workspaceId: workspace.id, mapId: id }),
   ]);
   if (!certificate || !source || !target) notFound();
 
@@ -144,6 +147,21 @@ export default async function MapPage({ params }: Props) {
 
       <Panel title="What this certificate guarantees">
         <GuaranteeText kind={map.kind} block={map.block} steps={map.steps} filename={`certificate-${hex.slice(0, 12)}.json`} />
+        <div className="mt-4 space-y-2 border-t border-line pt-3">
+          <ReverifyForm action={reverifyMapAction.bind(null, map.id)} />
+          {checks.length > 0 ? (
+            <ul className="text-xs text-ink-faint">
+              {checks.map((c, i) => (
+                <li key={i}>
+                  {formatDate(c.at)}: {c.status === "holds" ? "verified again, the square commutes" : `not confirmed (${c.status})`}
+                  {c.checkerVersion ? ` · checker ${c.checkerVersion}` : ""}
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="text-xs text-ink-faint">Not re-verified since it was stored.</p>
+          )}
+        </div>
       </Panel>
 
       {picture ? (
