@@ -2,6 +2,13 @@
  * What a certificate's check proves and what it does not, in the words of the field (DOMAIN.md §2):
  * one sentence each, chosen by the kind of map.
  */
+const SUPERSCRIPT = "⁰¹²³⁴⁵⁶⁷⁸⁹";
+
+/** A power written as in print: P⁷ (for a number), or P^k. */
+export function power(base: string, n: number | null): string {
+  return n === null ? `${base}^k` : `${base}${String(n).split("").map((d) => SUPERSCRIPT[Number(d)]).join("")}`;
+}
+
 export function guaranteeOf(kind: string, block: number | null, steps: number | null): { proves: string; doesNot: string } {
   const T = steps ?? block;
   switch (kind) {
@@ -18,7 +25,7 @@ export function guaranteeOf(kind: string, block: number | null, steps: number | 
       };
     case "decimation":
       return {
-        proves: `The checker computed P^${T ?? "k"} exactly by repeated squaring and found it equal to the target matrix entry by entry.`,
+        proves: `The checker computed ${power("P", T)} exactly by repeated squaring and found it equal to the target matrix entry by entry.`,
         doesNot: "It holds for these exact rationals only, and says nothing about a chain entered wrongly.",
       };
     default:

@@ -13,7 +13,7 @@ import { SquarePreview } from "@/components/atlas/square-preview";
 import { tikzSquare, type SquareInput } from "@/components/atlas/tikzSquare";
 import { HeatMap } from "@/components/atlas/heat-map";
 import { formatDate } from "@/components/atlas/formatDate";
-import { guaranteeOf } from "@/components/atlas/guarantee";
+import { guaranteeOf, power } from "@/components/atlas/guarantee";
 import { CommutingPictureView } from "@/components/spacetime/commuting-picture";
 import { pictureInputOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
@@ -58,7 +58,7 @@ export default async function MapPage({ params }: Props) {
   const partition = map.kind === "lumping" ? partitionOf(certificate.body) : null;
   const bibtex = bibtexEntry({
     certificateAddress: certificate.address,
-    claim: map.summary,
+    claim: leadOf(map.summary, source.name, target.name),
     authorName: author?.name ?? null,
     workspaceName: workspace.name,
     checkerVersion: certificate.checkerVersion,
@@ -214,9 +214,9 @@ function ChainsPanel({ source, target, kind, steps, partition }: { source: Chain
   const k = steps && steps > 1 ? steps : null;
   const fineCaption =
     kind === "lumping"
-      ? `P of ${source.name}, states grouped by the partition's blocks (outlined)${k ? `; the lumping is of P^${k}` : ""}`
+      ? `P of ${source.name}, states grouped by the partition's blocks (outlined)${k ? `; the lumping is of ${power("P", k)}` : ""}`
       : `P of ${source.name}`;
-  const coarseCaption = kind === "lumping" ? `Q, the lumped chain: one state per block` : `P${k ? `^${k}` : ""}: ${k ?? 1} steps of P in one`;
+  const coarseCaption = kind === "lumping" ? `Q, the lumped chain: one state per block` : `${k ? power("P", k) : "P"}: ${k ?? 1} steps of P in one`;
   return (
     <Panel title={kind === "lumping" ? "The chain and its lumping" : "The chain and its decimation"}>
       <div className="grid gap-6 md:grid-cols-2">
