@@ -59,7 +59,7 @@ export function RuleTable({ k, r, table, rule }: { k: number; r: number; table: 
             <table key={chunk[0]} className="border-separate border-spacing-x-0.5 font-mono text-xs">
               <tbody>
                 <tr>
-                  <th scope="row" className="pr-2 text-left font-sans font-normal text-ink-faint">
+                  <th scope="row" className="whitespace-nowrap pr-2 text-left font-sans font-normal text-ink-faint">
                     {neighbourhoodHeading(r)}
                   </th>
                   {chunk.map((i) => (
@@ -69,7 +69,7 @@ export function RuleTable({ k, r, table, rule }: { k: number; r: number; table: 
                   ))}
                 </tr>
                 <tr>
-                  <th scope="row" className="pr-2 text-left font-sans font-normal text-ink-faint">
+                  <th scope="row" className="whitespace-nowrap pr-2 text-left font-sans font-normal text-ink-faint">
                     new x₀
                   </th>
                   {chunk.map((i) => (
