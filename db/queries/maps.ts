@@ -102,7 +102,17 @@ export async function createCertifiedEdge(
         exceptUserId: input.userId,
         mapId: map.id,
         subject: `New certified map: ${source.name} → ${target.name}`,
-        body: `${input.map.summary}\n\nCertificate ${certificate.address}\n${input.linkBase ?? ""}/atlas/maps/${map.id}\n`,
+        body: [
+          input.map.summary,
+          definitionLine(certificate.body),
+          `Certified by ${await authorName(tx, input.userId)}; the server verified the certificate before storing it.`,
+          "",
+          `Certificate ${certificate.address}`,
+          `${input.linkBase ?? ""}/atlas/maps/${map.id}`,
+          "",
+        ]
+          .filter((line) => line !== null)
+          .join("\n"),
       });
       await step("outbox");
       return { status: "created" as const, mapId: map.id, address: certificate.address };
@@ -144,6 +154,28 @@ async function findMapByCertificate({
     .from(maps)
     .where(and(eq(maps.workspaceId, workspaceId), eq(maps.certificateAddress, address)))
     .get();
+}
+
+/**
+ * What the map is, for a watcher's mail, so that two maps between the same models read apart: the
+ * projection as the coarse symbol of each block state (states 0…0 to 1…1 in order) or the partition
+ * as the block of each state; null for other kinds.
+ */
+export function definitionLine(certificateBody: string): string | null {
+  try {
+    const map = (JSON.parse(certificateBody) as { map?: { projection?: unknown; partition?: unknown } }).map;
+    if (Array.isArray(map?.projection)) return `Projection (coarse symbol of each block state, 0…0 first): ${map.projection.join("")}`;
+    if (Array.isArray(map?.partition)) return `Partition (block of each state, in order): ${map.partition.join(", ")}`;
+  } catch {
+    // a body that is not JSON has no definition to show
+  }
+  return null;
+}
+
+async function authorName(db: Executor, userId: string | null): Promise<string> {
+  if (!userId) return "the atlas's seed";
+  const row = await db.select({ name: users.name }).from(users).where(eq(users.id, userId)).get();
+  return row?.name ?? "a former member";
 }
 
 /** One pending outbox message per person watching any of the models (the actor excepted). */

@@ -1,14 +1,16 @@
 import { createHash } from "node:crypto";
+import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createCertifiedEdge, setDatabase, type CertifiedEdgeInput } from "@/db/queries/atlas";
 import { listCertificateChecks, listModelMaps, recordCertificateCheck } from "@/db/queries/maps";
-import { models } from "@/db/schema";
+import { models, notificationOutbox } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
-import { ecaFields, seedAtlasPeople } from "./atlas-fixtures";
+import { ecaFields, seedAtlasPeople, watchModel } from "./atlas-fixtures";
 
 let t: TestDatabase;
 let ws: string;
 let userId: string;
+let viewerId: string;
 const ids: Record<number, string> = {};
 
 /** A stored edge whose certificate body carries a projection, with the ECAs' symmetry classes set. */
@@ -32,6 +34,7 @@ beforeAll(async () => {
   const seeded = await seedAtlasPeople(t.db, "maps-lab");
   ws = seeded.workspace.id;
   userId = seeded.people.curator.id;
+  viewerId = seeded.people.viewer.id;
   await createCertifiedEdge(edge(30, 0, 2, [0, 0, 0, 0]));
   await createCertifiedEdge(edge(30, 255, 2, [1, 1, 1, 1]));
   await createCertifiedEdge(edge(30, 90, 2, [0, 1, 1, 0]));
@@ -92,5 +95,16 @@ describe("certificate re-verification records", () => {
     expect(checks.map((c) => c.status)).toEqual(["too-large", "holds"]);
     expect(checks[1]).toMatchObject({ actorId: userId, checkerVersion: "squarely-checker/1" });
     expect(checks[0].at.getTime()).toBeGreaterThanOrEqual(checks[1].at.getTime());
+  });
+});
+
+describe("a watcher's mail about a new map", () => {
+  it("says who certified it and what the map is, so two maps between the same models read apart", async () => {
+    await watchModel(t.db, ws, viewerId, ids[30]);
+    await createCertifiedEdge(edge(30, 60, 2, [0, 0, 1, 1]));
+    const mail = await t.db.select().from(notificationOutbox).where(eq(notificationOutbox.userId, viewerId)).all();
+    expect(mail).toHaveLength(1);
+    expect(mail[0].body).toContain("Projection (coarse symbol of each block state, 0…0 first): 0011");
+    expect(mail[0].body).toContain("Certified by The curator");
   });
 });
