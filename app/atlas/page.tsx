@@ -100,6 +100,9 @@ export default async function AtlasPage({ searchParams }: { searchParams: Promis
             <Link href="/atlas/ask" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
               Ask the atlas
             </Link>
+            <Link href="/atlas/exchange" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
+              Export and import
+            </Link>
           </>
         }
       />

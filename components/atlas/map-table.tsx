@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { MapKindBadge, StatusBadge } from "./map-badges";
+import { describeDefinition } from "./mapDefinition";
 
 export type MapRow = {
   id: string;
@@ -13,7 +14,21 @@ export type MapRow = {
   other: { id: string; name: string };
   /** Set when the list is not about one model: the source, with `other` the target. */
   from?: { id: string; name: string };
+  /** The projection or partition as JSON text, when the list knows it. */
+  definition?: string | null;
 };
+
+/** The projection as its symbols (with a familiar name), or the partition as blocks. */
+function Definition({ row, labels }: { row: MapRow; labels?: string[] }) {
+  const d = describeDefinition(row.kind, row.definition ?? null, row.block, labels);
+  if (!d) return null;
+  return (
+    <span className="mt-0.5 block text-xs text-ink-soft" title={d.title}>
+      {d.name ? <span className="mr-1.5">{d.name}</span> : null}
+      <span className="font-mono tracking-wider text-ink-faint">{d.symbols}</span>
+    </span>
+  );
+}
 
 function ModelLink({ model }: { model: { id: string; name: string } }) {
   return (
@@ -24,7 +39,7 @@ function ModelLink({ model }: { model: { id: string; name: string } }) {
 }
 
 /** Maps from or to one model: the other end, kind, block size, status. */
-export function MapTable({ rows, otherHeading, empty }: { rows: MapRow[]; otherHeading: string; empty: string }) {
+export function MapTable({ rows, otherHeading, empty, labels }: { rows: MapRow[]; otherHeading: string; empty: string; labels?: string[] }) {
   if (rows.length === 0) return <p className="text-sm text-ink-faint">{empty}</p>;
   const withSource = rows.some((r) => r.from);
   return (
@@ -54,6 +69,7 @@ export function MapTable({ rows, otherHeading, empty }: { rows: MapRow[]; otherH
             <td className="py-1.5 pr-3">
               <MapKindBadge kind={row.kind} block={row.block} steps={row.steps} />
               {row.derivation ? <span className="ml-1 text-xs text-ink-faint">by {row.derivation}</span> : null}
+              <Definition row={row} labels={labels} />
             </td>
             <td className="py-1.5 pr-3">
               <StatusBadge status={row.status} />

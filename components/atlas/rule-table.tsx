@@ -1,90 +1,102 @@
-function Cell({ on }: { on: boolean }) {
-  return <span className={`inline-block h-3 w-3 border border-ink-soft ${on ? "bg-ink" : "bg-paper-raised"}`} />;
-}
+import { cellPalette, cssColour } from "@/components/spacetime/palette";
 
-/**
- * An elementary CA rule: its Wolfram number, binary digits and the eight neighbourhoods with the
- * new centre cell, where neighbourhood (a, b, c) reads bit 4a + 2b + c (Wolfram, Rev. Mod. Phys. 55,
- * 601, 1983).
- */
-export function EcaRuleTable({ rule }: { rule: number }) {
-  const neighbourhoods = [7, 6, 5, 4, 3, 2, 1, 0];
-  return (
-    <figure className="inline-block">
-      <figcaption className="mb-2 text-sm">
-        <span className="font-semibold">Rule {rule}</span>{" "}
-        <span className="font-mono text-ink-faint">= {rule.toString(2).padStart(8, "0")}₂</span>
-      </figcaption>
-      <table className="border-collapse text-center">
-        <tbody>
-          <tr>
-            {neighbourhoods.map((n) => (
-              <td key={n} className="px-1.5 pb-1" title={`neighbourhood ${n.toString(2).padStart(3, "0")}`}>
-                <span className="inline-flex gap-px">
-                  {[4, 2, 1].map((bit) => (
-                    <Cell key={bit} on={(n & bit) !== 0} />
-                  ))}
-                </span>
-              </td>
-            ))}
-          </tr>
-          <tr>
-            {neighbourhoods.map((n) => (
-              <td key={n} className="px-1.5">
-                <Cell on={((rule >> n) & 1) === 1} />
-              </td>
-            ))}
-          </tr>
-          <tr>
-            {neighbourhoods.map((n) => (
-              <td key={n} className="px-1.5 font-mono text-xs text-ink-faint">
-                {(rule >> n) & 1}
-              </td>
-            ))}
-          </tr>
-        </tbody>
-      </table>
-    </figure>
-  );
-}
-
-/** Neighbourhood index as base-k digits, x_{-r} the most significant (DOMAIN §1). */
+/** Neighbourhood index as base-k digits, x_{-r} the most significant (DOMAIN.md §1). */
 function digits(index: number, k: number, width: number): string {
   return index.toString(k).padStart(width, "0");
 }
 
-const SHOWN = 64;
+const PER_ROW = 16;
+const SHOWN = 256;
+
+/** Text on a coloured cell: light on the dark half of the palette. */
+function Output({ value, k }: { value: number; k: number }) {
+  const palette = cellPalette(k);
+  const c = palette[value] ?? palette[palette.length - 1];
+  const dark = 0.299 * c[0] + 0.587 * c[1] + 0.114 * c[2] < 140;
+  return (
+    <span className={`flex h-6 items-center justify-center rounded-sm font-semibold ${dark ? "text-paper-raised" : "text-ink"}`} style={{ backgroundColor: cssColour(c) }}>
+      {value.toString(36)}
+    </span>
+  );
+}
+
+function neighbourhoodHeading(r: number): string {
+  const sub = (i: number) => (i < 0 ? `₋${"₀₁₂₃₄₅₆₇₈₉"[-i]}` : "₀₁₂₃₄₅₆₇₈₉"[i]);
+  return Array.from({ length: 2 * r + 1 }, (_, j) => `x${sub(j - r)}`).join(" ");
+}
 
 /**
- * A general 1-D CA rule table (alphabet k, radius r). Small tables are listed neighbourhood by
- * neighbourhood; large ones as the digit string of the table in index order.
+ * A 1-D CA rule (an ECA is k = 2, r = 1) as a compact two-row table: each neighbourhood written as
+ * its digits x_{-r} … x_r, in index order 0 → k^(2r+1) − 1, with the new centre cell beneath it in
+ * the house colours. Long tables wrap every 16 neighbourhoods; very long ones become a digit string.
  */
-export function CaRuleTable({ k, r, table }: { k: number; r: number; table: number[] }) {
+export function RuleTable({ k, r, table, rule }: { k: number; r: number; table: number[]; rule?: number }) {
   const width = 2 * r + 1;
+  const chunks: number[][] = [];
+  for (let i = 0; i < table.length; i += PER_ROW) chunks.push(Array.from({ length: Math.min(PER_ROW, table.length - i) }, (_, j) => i + j));
   return (
-    <figure>
+    <figure className="min-w-0">
       <figcaption className="mb-2 text-sm">
-        <span className="font-semibold">
-          k = {k}, r = {r}
-        </span>{" "}
-        <span className="text-ink-faint">
-          ({table.length} neighbourhoods, x<sub>−r</sub> most significant)
-        </span>
+        {rule !== undefined ? (
+          <>
+            <span className="font-semibold">Rule {rule}</span>{" "}
+            <span className="text-ink-faint">
+              — the outputs below, read from 111 down to 000, are {rule} in binary: <span className="font-mono">{rule.toString(2).padStart(8, "0")}</span>
+            </span>
+          </>
+        ) : (
+          <>
+            <span className="font-semibold">
+              {k} symbols, radius {r}
+            </span>{" "}
+            <span className="text-ink-faint">({table.length} neighbourhoods of {width} cells)</span>
+          </>
+        )}
       </figcaption>
-      {table.length <= SHOWN && k <= 10 ? (
-        <dl className="grid grid-cols-[repeat(auto-fill,minmax(6.5rem,1fr))] gap-x-4 gap-y-0.5 font-mono text-xs">
-          {table.map((value, i) => (
-            <div key={i} className="flex justify-between border-b border-line">
-              <dt className="text-ink-faint">{digits(i, k, width)}</dt>
-              <dd className="font-semibold text-ink">{value}</dd>
-            </div>
+      {table.length <= SHOWN ? (
+        <div className="space-y-2 overflow-x-auto">
+          {chunks.map((chunk) => (
+            <table key={chunk[0]} className="border-separate border-spacing-x-0.5 font-mono text-xs">
+              <tbody>
+                <tr>
+                  <th scope="row" className="whitespace-nowrap pr-2 text-left font-sans font-normal text-ink-faint">
+                    {neighbourhoodHeading(r)}
+                  </th>
+                  {chunk.map((i) => (
+                    <td key={i} className="min-w-8 rounded-sm bg-paper px-1 py-0.5 text-center tracking-wider text-ink-soft">
+                      {digits(i, k, width)}
+                    </td>
+                  ))}
+                </tr>
+                <tr>
+                  <th scope="row" className="whitespace-nowrap pr-2 text-left font-sans font-normal text-ink-faint">
+                    new x₀
+                  </th>
+                  {chunk.map((i) => (
+                    <td key={i} title={`neighbourhood ${digits(i, k, width)} → ${table[i]}`}>
+                      <Output value={table[i]} k={k} />
+                    </td>
+                  ))}
+                </tr>
+              </tbody>
+            </table>
           ))}
-        </dl>
+        </div>
       ) : (
-        <p className="max-h-40 overflow-auto break-all rounded bg-paper p-2 font-mono text-xs leading-relaxed">
-          {table.join(k > 10 ? "," : "")}
-        </p>
+        <>
+          <p className="mb-1 text-xs text-ink-faint">New centre cell for each neighbourhood in index order 0 → {table.length - 1}:</p>
+          <p className="max-h-40 overflow-auto break-all rounded bg-paper p-2 font-mono text-xs leading-relaxed">{table.join(k > 10 ? "," : "")}</p>
+        </>
       )}
     </figure>
   );
+}
+
+/** An elementary CA by its Wolfram code: bit 4a + 2b + c is the new centre for (a, b, c) (Wolfram, Rev. Mod. Phys. 55, 601, 1983). */
+export function EcaRuleTable({ rule }: { rule: number }) {
+  return <RuleTable k={2} r={1} rule={rule} table={Array.from({ length: 8 }, (_, i) => (rule >> i) & 1)} />;
+}
+
+export function CaRuleTable({ k, r, table }: { k: number; r: number; table: number[] }) {
+  return <RuleTable k={k} r={r} table={table} />;
 }

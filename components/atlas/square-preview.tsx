@@ -1,72 +1,28 @@
-import { squareParts, type SquareInput } from "./tikzSquare";
-import { texTokens, type TexNode } from "./texTokens";
+import katex from "katex";
+// KaTeX's stylesheet: Next bundles it with the fonts it references, so formulas need no CDN.
+import "katex/dist/katex.min.css";
+import { tikzSquare, type SquareInput } from "./tikzSquare";
+import { tikzToCd } from "./tikzToCd";
 
-function Tex({ nodes }: { nodes: TexNode[] }) {
-  return (
-    <>
-      {nodes.map((n, i) =>
-        n.t === "text" ? (
-          <span key={i}>{n.text}</span>
-        ) : n.t === "sub" ? (
-          <sub key={i}>
-            <Tex nodes={n.children} />
-          </sub>
-        ) : (
-          <sup key={i}>
-            <Tex nodes={n.children} />
-          </sup>
-        ),
-      )}
-    </>
-  );
-}
-
-const tex = (src: string) => <Tex nodes={texTokens(src)} />;
-
-function Horizontal({ label, below = false }: { label: string; below?: boolean }) {
-  return (
-    <div className="flex flex-col items-center justify-center px-2">
-      {below ? null : <span className="text-sm italic">{tex(label)}</span>}
-      <span aria-hidden className="flex w-full min-w-16 items-center">
-        <span className="h-px flex-1 bg-ink-soft" />
-        <span className="-ml-1 text-ink-soft">▸</span>
-      </span>
-      {below ? <span className="text-sm italic">{tex(label)}</span> : null}
-    </div>
-  );
-}
-
-function Vertical({ label, side }: { label: string; side: "left" | "right" }) {
-  return (
-    <div className={`flex items-center justify-center gap-1 ${side === "left" ? "flex-row" : "flex-row-reverse"}`}>
-      <span className="text-sm italic">{tex(label)}</span>
-      <span aria-hidden className="flex h-12 flex-col items-center">
-        <span className="w-px flex-1 bg-ink-soft" />
-        <span className="-mt-1.5 leading-none text-ink-soft">▾</span>
-      </span>
-    </div>
-  );
+/** LaTeX rendered by KaTeX on the server (HTML plus MathML for screen readers); an error shows the source in red, never throws. */
+export function Formula({ tex, display = false, className = "" }: { tex: string; display?: boolean; className?: string }) {
+  const html = katex.renderToString(tex, { displayMode: display, throwOnError: false, output: "htmlAndMathml", strict: "ignore" });
+  return <span className={className} dangerouslySetInnerHTML={{ __html: html }} />;
 }
 
 /**
- * The commuting square drawn with HTML and CSS, from the same parts as the tikz-cd source; a
- * reader sees the square, an author copies the source.
+ * The commuting square drawn by KaTeX from the very tikz-cd source offered for download (turned
+ * into KaTeX's CD environment), so the page and the paper show the same thing.
  */
 export function SquarePreview({ input }: { input: SquareInput }) {
-  const p = squareParts(input);
-  const corner = "px-2 py-1 text-center font-serif text-base";
-  const described = `Commuting square: ${p.top} on top, ${p.bottom} below, ${p.down} down both sides`;
+  const cd = tikzToCd(tikzSquare(input));
+  if (!cd) return <p className="text-sm text-ink-faint">This square has no preview; its tikz-cd source is below.</p>;
   return (
-    <figure role="img" aria-label={described} className="inline-grid grid-cols-[auto_minmax(5rem,auto)_auto] items-center font-serif text-ink">
-      <div className={corner}>{tex(p.topLeft)}</div>
-      <Horizontal label={p.top} />
-      <div className={corner}>{tex(p.topLeft)}</div>
-      <Vertical label={p.down} side="left" />
-      <div />
-      <Vertical label={p.down} side="right" />
-      <div className={corner}>{tex(p.bottomLeft)}</div>
-      <Horizontal label={p.bottom} below />
-      <div className={corner}>{tex(p.bottomLeft)}</div>
+    <figure aria-label="Commuting square" className="max-w-full overflow-x-auto text-ink">
+      {/* KaTeX sets the side labels of CD's vertical arrows outside the box: room on both sides keeps them visible. */}
+      <div className="inline-block px-16 py-1">
+        <Formula tex={cd} display />
+      </div>
     </figure>
   );
 }

@@ -2,6 +2,8 @@ import "server-only";
 import { and, asc, eq, gt, inArray, ne, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import {
+  auditEvents,
+  certificates,
   maps,
   models,
   notificationOutbox,
@@ -100,7 +102,17 @@ export async function createCertifiedEdge(
         exceptUserId: input.userId,
         mapId: map.id,
         subject: `New certified map: ${source.name} → ${target.name}`,
-        body: `${input.map.summary}\n\nCertificate ${certificate.address}\n${input.linkBase ?? ""}/atlas/maps/${map.id}\n`,
+        body: [
+          input.map.summary,
+          definitionLine(certificate.body),
+          `Certified by ${await authorName(tx, input.userId)}; the server verified the certificate before storing it.`,
+          "",
+          `Certificate ${certificate.address}`,
+          `${input.linkBase ?? ""}/atlas/maps/${map.id}`,
+          "",
+        ]
+          .filter((line) => line !== null)
+          .join("\n"),
       });
       await step("outbox");
       return { status: "created" as const, mapId: map.id, address: certificate.address };
@@ -142,6 +154,28 @@ async function findMapByCertificate({
     .from(maps)
     .where(and(eq(maps.workspaceId, workspaceId), eq(maps.certificateAddress, address)))
     .get();
+}
+
+/**
+ * What the map is, for a watcher's mail, so that two maps between the same models read apart: the
+ * projection as the coarse symbol of each block state (states 0…0 to 1…1 in order) or the partition
+ * as the block of each state; null for other kinds.
+ */
+export function definitionLine(certificateBody: string): string | null {
+  try {
+    const map = (JSON.parse(certificateBody) as { map?: { projection?: unknown; partition?: unknown } }).map;
+    if (Array.isArray(map?.projection)) return `Projection (coarse symbol of each block state, 0…0 first): ${map.projection.join("")}`;
+    if (Array.isArray(map?.partition)) return `Partition (block of each state, in order): ${map.partition.join(", ")}`;
+  } catch {
+    // a body that is not JSON has no definition to show
+  }
+  return null;
+}
+
+async function authorName(db: Executor, userId: string | null): Promise<string> {
+  if (!userId) return "the atlas's seed";
+  const row = await db.select({ name: users.name }).from(users).where(eq(users.id, userId)).get();
+  return row?.name ?? "a former member";
 }
 
 /** One pending outbox message per person watching any of the models (the actor excepted). */
@@ -349,4 +383,125 @@ export async function retractMap({
   const view = await getMap({ db, workspaceId, mapId });
   if (!view) throw new AppError("not_found", `No map ${mapId} in this workspace.`, { field: "id" });
   return view;
+}
+
+export type ModelMapRow = MapView & {
+  /** The map's defining data from its certificate: the projection or partition as JSON text, else null. */
+  definition: string | null;
+  /** Symmetry class of the model at the other end (ECAs only). */
+  otherClass: number | null;
+};
+
+export type ModelMapListOptions = {
+  db?: Executor;
+  workspaceId: string;
+  modelId: string;
+  direction: "from" | "to";
+  kind?: MapKind;
+  block?: number;
+  /** Symmetry class of the model at the other end. */
+  otherClass?: number;
+  /** Leave out maps whose other end is a constant ECA (rule 0 or 255); they are counted instead. */
+  hideConstant?: boolean;
+  limit?: number;
+  cursor?: string | null;
+};
+
+const CONSTANT_RULES = [0, 255];
+
+/**
+ * One page of a model's "coarse-grains onto" (direction from) or "coarse-grained from" (to) list,
+ * retracted maps included, in a stable order (the other end's rule number, then name, then map id),
+ * with the filters a model page offers and each map's projection or partition.
+ */
+export async function listModelMaps(options: ModelMapListOptions): Promise<{ items: ModelMapRow[]; nextCursor: string | null; total: number; constant: number }> {
+  const { db = getDatabase(), workspaceId, modelId, direction, kind, block, otherClass, hideConstant = false, limit = 20, cursor } = options;
+  return withDb("listing a model's maps", async () => {
+    const other = direction === "from" ? targetModel : sourceModel;
+    const base: SQL[] = [eq(maps.workspaceId, workspaceId), eq(direction === "from" ? maps.sourceModelId : maps.targetModelId, modelId)];
+    if (kind) base.push(eq(maps.kind, kind));
+    if (block !== undefined) base.push(eq(maps.block, block));
+    if (otherClass !== undefined) base.push(eq(other.symmetryClass, otherClass));
+    const isConstant = and(eq(other.kind, "eca"), inArray(other.rule, CONSTANT_RULES))!;
+    const orderKey = sql`coalesce(${other.rule}, 1000)`;
+    const listed = [...base];
+    if (hideConstant) listed.push(sql`NOT (${isConstant})`);
+    const counted = await db
+      .select({ total: sql<number>`count(*)`, constant: sql<number>`coalesce(sum(CASE WHEN ${isConstant} THEN 1 ELSE 0 END), 0)` })
+      .from(maps)
+      .innerJoin(sourceModel, eq(sourceModel.id, maps.sourceModelId))
+      .innerJoin(targetModel, eq(targetModel.id, maps.targetModelId))
+      .where(and(...base))
+      .get();
+    if (cursor) {
+      const [rule, name, id] = decodeCursor(cursor, 3);
+      listed.push(sql`(${orderKey}, ${other.name}, ${maps.id}) > (${Number(rule)}, ${String(name)}, ${String(id)})`);
+    }
+    const rows = await db
+      .select({
+        map: maps,
+        source: { id: sourceModel.id, address: sourceModel.address, kind: sourceModel.kind, name: sourceModel.name, rule: sourceModel.rule },
+        target: { id: targetModel.id, address: targetModel.address, kind: targetModel.kind, name: targetModel.name, rule: targetModel.rule },
+        otherClass: other.symmetryClass,
+        definition: sql<string | null>`coalesce(json_extract(${certificates.body}, '$.map.projection'), json_extract(${certificates.body}, '$.map.partition'))`,
+      })
+      .from(maps)
+      .innerJoin(sourceModel, eq(sourceModel.id, maps.sourceModelId))
+      .innerJoin(targetModel, eq(targetModel.id, maps.targetModelId))
+      .innerJoin(certificates, eq(certificates.address, maps.certificateAddress))
+      .where(and(...listed))
+      .orderBy(orderKey, asc(other.name), asc(maps.id))
+      .limit(limit + 1)
+      .all();
+    const items = rows.slice(0, limit).map((r) => ({ ...toView(r), definition: r.definition, otherClass: r.otherClass }));
+    const last = items[items.length - 1];
+    const lastOther = last ? (direction === "from" ? last.target : last.source) : null;
+    return {
+      items,
+      nextCursor: rows.length > limit && last && lastOther ? encodeCursor([lastOther.rule ?? 1000, lastOther.name, last.id]) : null,
+      total: counted?.total ?? 0,
+      constant: counted?.constant ?? 0,
+    };
+  });
+}
+
+/** A recorded re-verification of a map's certificate: when, by whom, and what the checker said. */
+export type CertificateCheck = { at: Date; actorId: string | null; status: string; checkerVersion: string | null };
+
+/** Records one re-verification of a map's certificate (as an audit event of the map). */
+export async function recordCertificateCheck({
+  db = getDatabase(),
+  workspaceId,
+  mapId,
+  userId,
+  status,
+  checkerVersion,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  mapId: string;
+  userId: string;
+  status: string;
+  checkerVersion: string | null;
+}): Promise<void> {
+  await withDb("recording a re-verification", () =>
+    recordAuditEvent({ db, workspaceId, actorId: userId, action: "certificate:reverify", subjectType: "map", subjectId: mapId, detail: { status, checkerVersion } }),
+  );
+}
+
+/** The re-verifications of a map's certificate, newest first. */
+export async function listCertificateChecks({ db = getDatabase(), workspaceId, mapId }: { db?: Executor; workspaceId: string; mapId: string }): Promise<CertificateCheck[]> {
+  return withDb("reading re-verifications", async () => {
+    const rows = await db
+      .select()
+      .from(auditEvents)
+      .where(and(eq(auditEvents.workspaceId, workspaceId), eq(auditEvents.subjectId, mapId), eq(auditEvents.action, "certificate:reverify")))
+      .orderBy(sql`${auditEvents.createdAt} DESC`)
+      .limit(10)
+      .all();
+    return rows.map((r) => {
+      const detail = JSON.parse(r.detail) as { status?: string; checkerVersion?: string | null };
+      return { at: r.createdAt, actorId: r.actorId, status: detail.status ?? "unknown", checkerVersion: detail.checkerVersion ?? null };
+    });
+  });
 }

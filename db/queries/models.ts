@@ -1,6 +1,7 @@
 import "server-only";
-import { and, asc, eq, gt, or } from "drizzle-orm";
+import { and, asc, eq, sql } from "drizzle-orm";
 import { models, type Model, type MODEL_KINDS } from "@/db/schema";
+import { recordAuditEvent } from "./audit";
 import { type Executor, getDatabase, withDb } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
 
@@ -96,7 +97,23 @@ export async function getModel({
   });
 }
 
-/** Models of a workspace in a stable order (name, then id), one page after `cursor`. */
+/**
+ * The order every model list uses: models with a rule number (ECAs) first, by rule number (so
+ * ECA 2 comes before ECA 10), then the rest by name, then id. Its cursor is these four values.
+ */
+export const modelOrder = [sql`(${models.rule} IS NULL)`, sql`coalesce(${models.rule}, -1)`, asc(models.name), asc(models.id)] as const;
+
+export function modelCursor(m: Pick<Model, "rule" | "name" | "id">): string {
+  return encodeCursor([m.rule === null ? 1 : 0, m.rule ?? -1, m.name, m.id]);
+}
+
+/** The rows after a `modelCursor` in `modelOrder`. */
+export function afterModelCursor(cursor: string) {
+  const [noRule, rule, name, id] = decodeCursor(cursor, 4);
+  return sql`((${models.rule} IS NULL), coalesce(${models.rule}, -1), ${models.name}, ${models.id}) > (${Number(noRule)}, ${Number(rule)}, ${String(name)}, ${String(id)})`;
+}
+
+/** Models of a workspace in `modelOrder`, one page after `cursor`. */
 export async function listModels({
   db = getDatabase(),
   workspaceId,
@@ -113,20 +130,54 @@ export async function listModels({
   return withDb("listing models", async () => {
     const conditions = [eq(models.workspaceId, workspaceId)];
     if (kind) conditions.push(eq(models.kind, kind));
-    if (cursor) {
-      const [name, id] = decodeCursor(cursor, 2).map(String);
-      const after = or(gt(models.name, name), and(eq(models.name, name), gt(models.id, id)));
-      if (after) conditions.push(after);
-    }
+    if (cursor) conditions.push(afterModelCursor(cursor));
     const rows = await db
       .select()
       .from(models)
       .where(and(...conditions))
-      .orderBy(asc(models.name), asc(models.id))
+      .orderBy(...modelOrder)
       .limit(limit + 1)
       .all();
     const items = rows.slice(0, limit);
     const last = items[items.length - 1];
-    return { items, nextCursor: rows.length > limit && last ? encodeCursor([last.name, last.id]) : null };
+    return { items, nextCursor: rows.length > limit && last ? modelCursor(last) : null };
   });
+}
+
+/**
+ * A person's display name and short description for a model in one workspace (the content address
+ * and canonical form never change). Audited; null when the model is not in the workspace.
+ */
+export async function updateModelDetails({
+  db = getDatabase(),
+  workspaceId,
+  modelId,
+  userId,
+  name,
+  description,
+}: {
+  db?: ReturnType<typeof getDatabase>;
+  workspaceId: string;
+  modelId: string;
+  userId: string | null;
+  name: string;
+  description: string;
+}): Promise<Model | null> {
+  return withDb("renaming a model", () =>
+    db.transaction(async (tx) => {
+      const before = await tx
+        .select({ name: models.name, description: models.description })
+        .from(models)
+        .where(and(eq(models.workspaceId, workspaceId), eq(models.id, modelId)))
+        .get();
+      if (!before) return null;
+      const [row] = await tx
+        .update(models)
+        .set({ name, description })
+        .where(and(eq(models.workspaceId, workspaceId), eq(models.id, modelId)))
+        .returning();
+      await recordAuditEvent({ db: tx, workspaceId, actorId: userId, action: "model:rename", subjectType: "model", subjectId: modelId, detail: { before, after: { name, description } } });
+      return row ?? null;
+    }),
+  );
 }

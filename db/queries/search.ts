@@ -5,7 +5,7 @@ import { maps, models, searchRecords, type Model, type SearchRecord } from "@/db
 import { type Executor, getDatabase, withDb } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
 import type { MapKind, MapView } from "./maps";
-import type { ModelKind } from "./models";
+import { afterModelCursor, modelCursor, modelOrder, type ModelKind } from "./models";
 
 export type AtlasSearch = {
   db?: Executor;
@@ -68,20 +68,17 @@ async function searchModels({
     if (tag) c.push(hasTag(sql`${models.tags}`, tag));
     if (block !== undefined) c.push(eq(models.block, block));
     if (modelKind) c.push(eq(models.kind, modelKind));
-    if (cursor) {
-      const [name, id] = decodeCursor(cursor, 2).map(String);
-      c.push(or(gt(models.name, name), and(eq(models.name, name), gt(models.id, id)))!);
-    }
+    if (cursor) c.push(afterModelCursor(cursor));
     const rows = await db
       .select()
       .from(models)
       .where(and(...c))
-      .orderBy(asc(models.name), asc(models.id))
+      .orderBy(...modelOrder)
       .limit(limit + 1)
       .all();
     const items = rows.slice(0, limit);
     const last = items[items.length - 1];
-    return { target: "models", items, nextCursor: rows.length > limit && last ? encodeCursor([last.name, last.id]) : null };
+    return { target: "models", items, nextCursor: rows.length > limit && last ? modelCursor(last) : null };
   });
 }
 

@@ -1,5 +1,7 @@
 import { certifyDecimation, certifyLumping, type Certificate } from "@/lib/certificate";
+import { canonicalModel, describeModel, modelAddress } from "@/lib/models";
 import { submitCertificate, type SubmitResult } from "@/server/atlas/submit";
+import { getModel, updateModelDetails } from "../queries/models";
 
 /**
  * Invented Markov chains of the demo (made-up numbers, no source): each one is built with a
@@ -77,11 +79,56 @@ export function demoChainCertificates(): { what: string; certificate: Certificat
   ];
 }
 
+type Named = { name: string; description: string };
+
+/**
+ * The scenario names of the demo's chains, by the certificate that produces them: each source and
+ * target gets a name a reader recognises instead of "Markov chain (4 states)".
+ */
+const SCENARIO_NAMES: Record<string, { source?: Named; target?: Named }> = {
+  "twin-bay queue: one bay busy, either side": {
+    source: { name: "Twin-bay queue", description: "Two identical sample bays watched once an hour: empty, left busy, right busy, both busy." },
+    target: { name: "Twin-bay queue: busy bays counted", description: "The twin-bay queue with the two bays interchangeable: no bay, one bay or both bays busy." },
+  },
+  "twin-bay queue: an odd number of busy bays": {
+    target: { name: "Twin-bay queue: parity of busy bays", description: "Whether an even or an odd number of bays is busy." },
+  },
+  "twin-bay queue: every two hours": {
+    target: { name: "Twin-bay queue, every two hours", description: "The twin-bay queue read every second hour (two steps in one)." },
+  },
+  "ward: carrying the infection": {
+    source: { name: "Ward compartments", description: "A made-up ward read once a day: susceptible, exposed, infectious, recovered." },
+    target: { name: "Ward compartments: carrying the infection", description: "The ward with exposed and infectious patients in one block, since both recover at 1/4 a day." },
+  },
+  "ward: weekly": {
+    target: { name: "Ward compartments, weekly", description: "The ward read once a week (seven daily steps in one)." },
+  },
+  "ward, lumped: weekly": {
+    target: { name: "Ward compartments: carrying the infection, weekly", description: "The lumped ward read once a week." },
+  },
+  "greenhouse sensor: every two readings": {
+    source: { name: "Greenhouse sensor", description: "An invented three-shelf humidity sensor: dry, damp, wet, with a sticky middle state." },
+    target: { name: "Greenhouse sensor, every two readings", description: "The greenhouse sensor read every second time." },
+  },
+};
+
+/** Names a model of the scenario unless someone has renamed it already (the seed never overwrites a person's name). */
+async function nameModel(workspaceId: string, model: Certificate["source"], named: Named): Promise<void> {
+  const canonical = canonicalModel(model);
+  const row = await getModel({ workspaceId, idOrAddress: modelAddress(canonical) });
+  if (row && row.name === describeModel(canonical)) {
+    await updateModelDetails({ workspaceId, modelId: row.id, userId: null, ...named });
+  }
+}
+
 /** Submits the demo chains' certificates through the atlas's verified path; running it again changes nothing. */
 export async function seedDemoChains({ workspaceId, userId }: { workspaceId: string; userId: string }): Promise<(SubmitResult & { what: string })[]> {
   const results = [];
   for (const { what, certificate } of demoChainCertificates()) {
     results.push({ what, ...(await submitCertificate({ workspaceId, userId, certificate })) });
+    const names = SCENARIO_NAMES[what];
+    if (names?.source) await nameModel(workspaceId, certificate.source, names.source);
+    if (names?.target) await nameModel(workspaceId, certificate.target, names.target);
   }
   return results;
 }

@@ -7,3 +7,8 @@ export { supercellTable } from "./supercellTable";
 export { supercellTablePlain, supercellShape } from "./supercellTablePlain";
 export { checkProjection, coarseAlphabet, cellString } from "./checkProjection";
 export type { CheckProjectionOptions, ProjectionCheck, ProjectionCounterexample, WindowWitness } from "./checkProjection";
+export { spaceTime, spaceTimeRow, MAX_SPACE_TIME_CELLS } from "./spaceTime";
+export type { SpaceTime } from "./spaceTime";
+export { randomRow, singleCellRow, parseRow } from "./spaceTimeRows";
+export { commutingPicture, projectRow } from "./spaceTimePicture";
+export type { CommutingPicture, CommutingPictureInput } from "./spaceTimePicture";

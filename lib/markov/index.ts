@@ -8,3 +8,5 @@ export { checkLumping } from "./checkLumping";
 export type { LumpingCheck, LumpingCounterexample } from "./checkLumping";
 export { parseCsvMatrix, parseMatrixMarket } from "./parseMatrix";
 export type { ParseMatrixOptions } from "./parseMatrix";
+export { stationaryDistributions, communicatingClasses, applyRow } from "./stationaryDistributions";
+export type { StationaryClass, StationaryResult } from "./stationaryDistributions";

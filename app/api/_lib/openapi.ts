@@ -18,6 +18,8 @@ import { routes as paths } from "../paths/schema";
 import { routes as search } from "../search/schema";
 import { routes as tokens } from "../tokens/schema";
 import { watchRoutes } from "../watches/schema";
+import { routes as workspaceExport } from "../workspace/export/schema";
+import { routes as workspaceImport } from "../workspace/import/schema";
 
 const ALL_ROUTES: RouteConfig[] = [
   ...models,
@@ -37,6 +39,8 @@ const ALL_ROUTES: RouteConfig[] = [
   ...watchRoutes,
   ...tokens,
   ...notes,
+  ...workspaceExport,
+  ...workspaceImport,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to

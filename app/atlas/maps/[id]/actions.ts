@@ -3,7 +3,9 @@
 import { revalidatePath } from "next/cache";
 import { z } from "zod";
 import type { RetractState } from "@/components/atlas/retract-form";
-import { retractMap } from "@/db/queries/atlas";
+import { getCertificate, getMap, retractMap } from "@/db/queries/atlas";
+import { recordCertificateCheck } from "@/db/queries/maps";
+import { runVerification } from "@/server/atlas/pool";
 import { isAppError } from "@/server/errors";
 import { requireAction } from "@/server/context";
 
@@ -28,4 +30,31 @@ export async function retractMapAction(mapId: string, _state: RetractState, form
   }
   revalidatePath(`/atlas/maps/${mapId}`);
   return { status: "ok", message: "The map is retracted; watchers of its models will be told." };
+}
+
+export type ReverifyState = { status: "idle" | "ok" | "error"; message?: string };
+
+/**
+ * Checks the map's stored certificate again with the core's checker, in a verification worker
+ * thread within the server's bounds, and records the result and date beside the map.
+ */
+export async function reverifyMapAction(mapId: string, _state: ReverifyState): Promise<ReverifyState> {
+  const { workspace, user } = await requireAction("atlas:read");
+  const map = await getMap({ workspaceId: workspace.id, mapId });
+  const certificate = map ? await getCertificate({ address: map.certificateAddress }) : null;
+  if (!map || !certificate) return { status: "error", message: "This map is not in the current workspace." };
+  let status: string;
+  let checkerVersion: string | null = null;
+  try {
+    const outcome = await runVerification({ op: "verify", certificate: JSON.parse(certificate.body) as unknown });
+    status = outcome.status === "holds" && outcome.address === certificate.address ? "holds" : outcome.status;
+    if (outcome.status === "holds") checkerVersion = outcome.checkerVersion;
+  } catch (err) {
+    status = isAppError(err) && err.code === "too_large" ? "too-large" : "error";
+  }
+  await recordCertificateCheck({ workspaceId: workspace.id, mapId, userId: user.id, status, checkerVersion });
+  revalidatePath(`/atlas/maps/${mapId}`);
+  return status === "holds"
+    ? { status: "ok", message: "Verified again: the square commutes." }
+    : { status: "error", message: `The check did not confirm the certificate (${status}).` };
 }

@@ -11,13 +11,20 @@ import { PageHeader } from "@/components/atlas/page-header";
 import { RetractForm } from "@/components/atlas/retract-form";
 import { SquarePreview } from "@/components/atlas/square-preview";
 import { tikzSquare, type SquareInput } from "@/components/atlas/tikzSquare";
+import { HeatMap } from "@/components/atlas/heat-map";
+import { formatDate } from "@/components/atlas/formatDate";
+import { guaranteeOf, power } from "@/components/atlas/guarantee";
+import { CommutingPictureView } from "@/components/spacetime/commuting-picture";
+import { pictureInputOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
 import { getCertificate, getMap, getModel } from "@/db/queries/atlas";
 import { getUserById } from "@/db/queries/users";
 import { env } from "@/env";
 import { can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
-import { retractMapAction } from "./actions";
+import { retractMapAction, reverifyMapAction } from "./actions";
+import { ReverifyForm } from "@/components/atlas/reverify-form";
+import { listCertificateChecks } from "@/db/queries/maps";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -27,28 +34,31 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
   return { title: map ? `${map.source.name} → ${map.target.name}` : "Map" };
 }
 
-const when = (d: Date) => `${d.toISOString().slice(0, 19).replace("T", " ")} UTC`;
+const when = formatDate;
 
 export default async function MapPage({ params }: Props) {
   const [{ id }, { workspace, role }] = await Promise.all([params, getWorkspaceContext()]);
   const map = await getMap({ workspaceId: workspace.id, mapId: id });
   if (!map) notFound();
-  const [certificate, source, target, author, retractor, origin] = await Promise.all([
+  const [certificate, source, target, author, retractor, origin, checks] = await Promise.all([
     getCertificate({ address: map.certificateAddress }),
     getModel({ workspaceId: workspace.id, idOrAddress: map.sourceModelId }),
     getModel({ workspaceId: workspace.id, idOrAddress: map.targetModelId }),
     map.authorId ? getUserById({ id: map.authorId }) : null,
     map.retractedBy ? getUserById({ id: map.retractedBy }) : null,
     map.derivedFromMapId ? getMap({ workspaceId: workspace.id, mapId: map.derivedFromMapId }) : null,
+    listCertificateChecks({ workspaceId: workspace.id, mapId: id }),
   ]);
   if (!certificate || !source || !target) notFound();
 
   const hex = certificate.address.replace(/^sha256:/, "");
   const square: SquareInput = { kind: map.kind, block: map.block, steps: map.steps, source, target, certificateAddress: certificate.address, certificate: certificate.body };
   const tikz = tikzSquare(square);
+  const picture = map.kind === "projection" ? pictureInputOf(certificate.body) : null;
+  const partition = map.kind === "lumping" ? partitionOf(certificate.body) : null;
   const bibtex = bibtexEntry({
     certificateAddress: certificate.address,
-    claim: map.summary,
+    claim: leadOf(map.summary, source.name, target.name),
     authorName: author?.name ?? null,
     workspaceName: workspace.name,
     checkerVersion: certificate.checkerVersion,
@@ -80,7 +90,7 @@ export default async function MapPage({ params }: Props) {
             </Link>
           </span>
         }
-        lead={map.summary}
+        lead={leadOf(map.summary, source.name, target.name)}
         actions={
           <DownloadJson json={certificate.body} filename={`certificate-${hex.slice(0, 12)}.json`}>
             Download certificate (JSON)
@@ -135,19 +145,33 @@ export default async function MapPage({ params }: Props) {
         </Panel>
       </div>
 
-      {source.kind === "markov" && target.kind === "markov" ? (
-        <Panel title="The two chains">
-          <div className="grid gap-6 md:grid-cols-2">
-            <div className="min-w-0">
-              <p className="mb-2 text-sm font-medium">{source.name}</p>
-              <CanonicalModel view={canonicalView(source.canonical)} />
-            </div>
-            <div className="min-w-0">
-              <p className="mb-2 text-sm font-medium">{target.name}</p>
-              <CanonicalModel view={canonicalView(target.canonical)} />
-            </div>
-          </div>
+      <Panel title="What this certificate guarantees">
+        <GuaranteeText kind={map.kind} block={map.block} steps={map.steps} filename={`certificate-${hex.slice(0, 12)}.json`} />
+        <div className="mt-4 space-y-2 border-t border-line pt-3">
+          <ReverifyForm action={reverifyMapAction.bind(null, map.id)} />
+          {checks.length > 0 ? (
+            <ul className="text-xs text-ink-faint">
+              {checks.map((c, i) => (
+                <li key={i}>
+                  {formatDate(c.at)}: {c.status === "holds" ? "verified again, the square commutes" : `not confirmed (${c.status})`}
+                  {c.checkerVersion ? ` · checker ${c.checkerVersion}` : ""}
+                </li>
+              ))}
+            </ul>
+          ) : (
+            <p className="text-xs text-ink-faint">Not re-verified since it was stored.</p>
+          )}
+        </div>
+      </Panel>
+
+      {picture ? (
+        <Panel title="The square on one row">
+          <CommutingPictureView {...picture} fineName={source.name} coarseName={target.name} />
         </Panel>
+      ) : null}
+
+      {source.kind === "markov" && target.kind === "markov" ? (
+        <ChainsPanel source={source} target={target} kind={map.kind} steps={map.steps} partition={partition} />
       ) : null}
 
       <Panel title="Certificate JSON">
@@ -163,6 +187,77 @@ export default async function MapPage({ params }: Props) {
           <RetractForm action={retractMapAction.bind(null, map.id)} />
         </Panel>
       ) : null}
+    </div>
+  );
+}
+
+/** The lumping's partition from its certificate body (block[i] = block of state i), or null. */
+function partitionOf(body: string): number[] | null {
+  try {
+    const p = (JSON.parse(body) as { map?: { partition?: unknown } }).map?.partition;
+    return Array.isArray(p) && p.every((x) => Number.isInteger(x)) ? (p as number[]) : null;
+  } catch {
+    return null;
+  }
+}
+
+type ChainEnd = { name: string; canonical: string };
+
+/**
+ * Both chains as heat maps and exact matrices: a lumping outlines the partition's blocks on the
+ * fine matrix; a decimation shows P beside P^k.
+ */
+function ChainsPanel({ source, target, kind, steps, partition }: { source: ChainEnd; target: ChainEnd; kind: string; steps: number | null; partition: number[] | null }) {
+  const fine = canonicalView(source.canonical);
+  const coarse = canonicalView(target.canonical);
+  if (fine.type !== "markov" || coarse.type !== "markov") return null;
+  const k = steps && steps > 1 ? steps : null;
+  const fineCaption =
+    kind === "lumping"
+      ? `P of ${source.name}, states grouped by the partition's blocks (outlined)${k ? `; the lumping is of ${power("P", k)}` : ""}`
+      : `P of ${source.name}`;
+  const coarseCaption = kind === "lumping" ? `Q, the lumped chain: one state per block` : `${k ? power("P", k) : "P"}: ${k ?? 1} steps of P in one`;
+  return (
+    <Panel title={kind === "lumping" ? "The chain and its lumping" : "The chain and its decimation"}>
+      <div className="grid gap-6 md:grid-cols-2">
+        <div className="min-w-0 space-y-4">
+          <p className="text-sm font-medium">{source.name}</p>
+          <HeatMap labels={fine.labels} matrix={fine.matrix} partition={kind === "lumping" ? partition : null} caption={fineCaption} />
+          <CanonicalModel view={fine} />
+        </div>
+        <div className="min-w-0 space-y-4">
+          <p className="text-sm font-medium">{target.name}</p>
+          <HeatMap labels={coarse.labels} matrix={coarse.matrix} caption={coarseCaption} />
+          <CanonicalModel view={coarse} />
+        </div>
+      </div>
+    </Panel>
+  );
+}
+
+/** The stored summary ("ECA 146 → ECA 128: projection at block 3, 3 steps") with the models' current names. */
+function leadOf(summary: string, sourceName: string, targetName: string): string {
+  const at = summary.indexOf(": ");
+  return at < 0 ? summary : `${sourceName} → ${targetName}: ${summary.slice(at + 2)}`;
+}
+
+/** The scope of the guarantee in plain words, and the one command that checks it again offline. */
+function GuaranteeText({ kind, block, steps, filename }: { kind: string; block: number | null; steps: number | null; filename: string }) {
+  const g = guaranteeOf(kind, block, steps);
+  return (
+    <div className="space-y-3 text-sm">
+      <p>
+        <span className="font-medium">It proves. </span>
+        {g.proves}
+      </p>
+      <p className="text-ink-soft">
+        <span className="font-medium text-ink">It does not prove. </span>
+        {g.doesNot}
+      </p>
+      <div>
+        <p className="mb-1 text-ink-soft">Check it yourself, offline, with the project&apos;s command-line verifier (prints the content address when the square commutes):</p>
+        <CopyBlock text={`npm run --silent cli -- verify ${filename}`} label="Command that re-verifies the certificate offline" wrap />
+      </div>
     </div>
   );
 }
