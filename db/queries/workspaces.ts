@@ -1,7 +1,8 @@
 import "server-only";
-import { asc, count, eq } from "drizzle-orm";
+import { and, asc, count, eq } from "drizzle-orm";
 import type { Role } from "@/lib/policy";
 import { chains, jobs, maps, memberships, models, workspaces, type Workspace } from "../schema";
+import { recordAuditEvent } from "./audit";
 import { getDatabase, withDb, type Executor } from "./connection";
 
 export type WorkspaceRef = Pick<Workspace, "id" | "slug" | "name">;
@@ -81,5 +82,60 @@ export async function getWorkspaceSummary(
       countIn(jobs),
     ]);
     return { members, models: modelCount, maps: mapCount, chains: chainCount, jobs: jobCount };
+  });
+}
+
+function slugify(text: string): string {
+  const slug = text
+    .toLowerCase()
+    .normalize("NFKD")
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 32);
+  return slug || "atlas";
+}
+
+/** Anyone may create a workspace; its creator is its first admin (one transaction). */
+export async function createWorkspace({ db = getDatabase(), userId, name }: { db?: Executor; userId: string; name: string }): Promise<WorkspaceRef> {
+  return withDb("creating a workspace", () =>
+    db.transaction(async (tx) => {
+      const slug = `${slugify(name)}-${crypto.randomUUID().slice(0, 6)}`;
+      const [row] = await tx
+        .insert(workspaces)
+        .values({ slug, name: name.trim() })
+        .returning({ id: workspaces.id, slug: workspaces.slug, name: workspaces.name });
+      await tx.insert(memberships).values({ workspaceId: row.id, userId, role: "admin" });
+      await recordAuditEvent({ db: tx, workspaceId: row.id, actorId: userId, action: "workspace:create", subjectType: "workspace", subjectId: row.id, detail: { name: row.name } });
+      return row;
+    }),
+  );
+}
+
+export async function getPublicView({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<boolean> {
+  return withDb("reading a workspace", async () => {
+    const [row] = await db.select({ on: workspaces.publicView }).from(workspaces).where(eq(workspaces.id, workspaceId)).limit(1);
+    return row?.on ?? false;
+  });
+}
+
+/** Turns the public read-only view on or off (audited). */
+export async function setPublicView({ db = getDatabase(), workspaceId, on, actorId }: { db?: Executor; workspaceId: string; on: boolean; actorId: string }): Promise<void> {
+  await withDb("changing the public view", () =>
+    db.transaction(async (tx) => {
+      await tx.update(workspaces).set({ publicView: on }).where(eq(workspaces.id, workspaceId));
+      await recordAuditEvent({ db: tx, workspaceId, actorId, action: "workspace:publish", subjectType: "workspace", subjectId: workspaceId, detail: { on } });
+    }),
+  );
+}
+
+/** The workspace with this slug when its public view is on; null otherwise (a private workspace looks absent). */
+export async function getPublicWorkspace({ db = getDatabase(), slug }: { db?: Executor; slug: string }): Promise<WorkspaceRef | null> {
+  return withDb("reading a workspace", async () => {
+    const [row] = await db
+      .select({ id: workspaces.id, slug: workspaces.slug, name: workspaces.name })
+      .from(workspaces)
+      .where(and(eq(workspaces.slug, slug), eq(workspaces.publicView, true)))
+      .limit(1);
+    return row ?? null;
   });
 }

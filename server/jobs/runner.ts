@@ -26,7 +26,7 @@ async function start(): Promise<Started> {
     runner = createJobRunner({ db, workers: env.JOB_WORKERS });
     await runner.start();
   }
-  const outbox = createOutboxDelivery({ db, send: sendMail });
+  const outbox = createOutboxDelivery({ db, send: sendMail, messageIdDomain: new URL(env.APP_URL).hostname });
   outbox.start();
   void outbox.deliverDue().catch((err) => console.error("mail outbox:", err));
   console.log(`job runner: ${env.JOB_WORKERS} worker thread(s); mail outbox delivery started`);
