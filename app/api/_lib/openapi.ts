@@ -17,6 +17,9 @@ import { routes as paths } from "../paths/schema";
 import { routes as search } from "../search/schema";
 import { routes as tokens } from "../tokens/schema";
 import { watchRoutes } from "../watches/schema";
+import { memberRoutes } from "../members/schema";
+import { invitationRoutes } from "../invitations/schema";
+import { workspaceRoutes } from "../workspaces/schema";
 
 const ALL_ROUTES: RouteConfig[] = [
   ...models,
@@ -35,6 +38,9 @@ const ALL_ROUTES: RouteConfig[] = [
   ...jobRoutes,
   ...watchRoutes,
   ...tokens,
+  ...memberRoutes,
+  ...invitationRoutes,
+  ...workspaceRoutes,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to
