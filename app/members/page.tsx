@@ -5,6 +5,10 @@ import { Panel } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { listPendingInvitations } from "@/db/queries/invitations";
 import { listMembers } from "@/db/queries/memberships";
+import { getPublicView } from "@/db/queries/workspaces";
+import { env } from "@/env";
+import { PublicViewForm } from "@/components/team/public-view-form";
+import { setPublicViewAction } from "@/app/workspaces/actions";
 import { ROLES, can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
 import { changeRoleAction, inviteAction, removeMemberAction, resendInvitationAction, revokeInvitationAction } from "./actions";
@@ -18,9 +22,10 @@ function day(d: Date): string {
 export default async function MembersPage() {
   const { user, workspace, role } = await getWorkspaceContext();
   const admin = can(role, "member:change-role");
-  const [members, invitations] = await Promise.all([
+  const [members, invitations, publicView] = await Promise.all([
     listMembers({ workspaceId: workspace.id }),
     admin ? listPendingInvitations({ workspaceId: workspace.id }) : Promise.resolve([]),
+    getPublicView({ workspaceId: workspace.id }),
   ]);
   const now = Date.now();
 
@@ -98,6 +103,9 @@ export default async function MembersPage() {
                   ))}
                 </ul>
               )}
+            </Panel>
+            <Panel title={`Public view: ${publicView ? "on" : "off"}`}>
+              <PublicViewForm on={publicView} url={new URL(`/public/${workspace.slug}`, env.APP_URL).toString()} action={setPublicViewAction} />
             </Panel>
           </div>
         ) : null}

@@ -1,7 +1,8 @@
 import "server-only";
-import { and, asc, count, eq } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray } from "drizzle-orm";
+import { alias } from "drizzle-orm/sqlite-core";
 import type { Role } from "@/lib/policy";
-import { chains, jobs, maps, memberships, models, workspaces, type Workspace } from "../schema";
+import { chains, jobs, maps, memberships, models, users, workspaces, type Workspace } from "../schema";
 import { recordAuditEvent } from "./audit";
 import { getDatabase, withDb, type Executor } from "./connection";
 
@@ -138,4 +139,81 @@ export async function getPublicWorkspace({ db = getDatabase(), slug }: { db?: Ex
       .limit(1);
     return row ?? null;
   });
+}
+
+export type RecentMap = {
+  id: string;
+  kind: string;
+  block: number | null;
+  summary: string;
+  sourceName: string;
+  targetName: string;
+  certificateAddress: string;
+  authorName: string | null;
+  createdAt: Date;
+};
+
+const recentSource = alias(models, "recent_source");
+const recentTarget = alias(models, "recent_target");
+
+/** The newest certified maps of a workspace (retracted ones left out). */
+export async function listRecentMaps({ db = getDatabase(), workspaceId, limit = 10 }: { db?: Executor; workspaceId: string; limit?: number }): Promise<RecentMap[]> {
+  return withDb("listing recent maps", () =>
+    db
+      .select({
+        id: maps.id,
+        kind: maps.kind,
+        block: maps.block,
+        summary: maps.summary,
+        sourceName: recentSource.name,
+        targetName: recentTarget.name,
+        certificateAddress: maps.certificateAddress,
+        authorName: users.name,
+        createdAt: maps.createdAt,
+      })
+      .from(maps)
+      .innerJoin(recentSource, eq(recentSource.id, maps.sourceModelId))
+      .innerJoin(recentTarget, eq(recentTarget.id, maps.targetModelId))
+      .leftJoin(users, eq(users.id, maps.authorId))
+      .where(and(eq(maps.workspaceId, workspaceId), eq(maps.status, "certified")))
+      .orderBy(desc(maps.createdAt), desc(maps.id))
+      .limit(limit),
+  );
+}
+
+export async function listRecentChains({ db = getDatabase(), workspaceId, limit = 5 }: { db?: Executor; workspaceId: string; limit?: number }) {
+  return withDb("listing recent chains", () =>
+    db
+      .select({ id: chains.id, name: chains.name, verification: chains.verification, authorName: users.name, createdAt: chains.createdAt })
+      .from(chains)
+      .leftJoin(users, eq(users.id, chains.authorId))
+      .where(eq(chains.workspaceId, workspaceId))
+      .orderBy(desc(chains.createdAt))
+      .limit(limit),
+  );
+}
+
+/** Jobs queued or running in the workspace, with their owner's name. */
+export async function listActiveJobs({ db = getDatabase(), workspaceId, limit = 10 }: { db?: Executor; workspaceId: string; limit?: number }) {
+  return withDb("listing running jobs", () =>
+    db
+      .select({ id: jobs.id, kind: jobs.kind, status: jobs.status, progress: jobs.progress, ownerName: users.name, createdAt: jobs.createdAt })
+      .from(jobs)
+      .leftJoin(users, eq(users.id, jobs.ownerId))
+      .where(and(eq(jobs.workspaceId, workspaceId), inArray(jobs.status, ["queued", "running"])))
+      .orderBy(desc(jobs.createdAt))
+      .limit(limit),
+  );
+}
+
+/** The models of a public workspace, by name (for the read-only view). */
+export async function listPublicModels({ db = getDatabase(), workspaceId, limit = 100 }: { db?: Executor; workspaceId: string; limit?: number }) {
+  return withDb("listing models", () =>
+    db
+      .select({ id: models.id, name: models.name, kind: models.kind, address: models.address })
+      .from(models)
+      .where(eq(models.workspaceId, workspaceId))
+      .orderBy(asc(models.name))
+      .limit(limit),
+  );
 }
