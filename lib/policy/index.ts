@@ -83,3 +83,5 @@ export function isRoleWithin(granted: Role, owner: Role): boolean {
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);
 }
+
+export { isUnsubscribeToken, unsubscribeToken, unsubscribeUrl } from "./unsubscribeToken";
