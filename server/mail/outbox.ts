@@ -52,6 +52,8 @@ export type DeliveryOptions = {
   batch?: number;
   /** Right part of each Message-ID. @default "squarely.local" */
   messageIdDomain?: string;
+  /** Runs at the start of each pass with the pass's time (the daily digests queue their mail here). */
+  beforePass?: (now: Date) => Promise<unknown>;
   /** Called between a successful send and marking the row sent (crash tests only). */
   afterSend?: (message: OutboxMessage) => Promise<void> | void;
 };
@@ -117,6 +119,7 @@ export function createOutboxDelivery(options: DeliveryOptions): OutboxDelivery {
 
   async function pass(): Promise<DeliveryReport> {
     const report: DeliveryReport = { sent: 0, retrying: 0, failed: 0 };
+    await options.beforePass?.(now());
     const claimed = await claimDueOutbox({ db: options.db, owner, now: now(), leaseMs: options.leaseMs ?? LEASE_MS, limit: options.batch ?? 50 });
     for (const message of claimed) await deliverOne(message, report);
     return report;

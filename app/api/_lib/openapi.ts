@@ -20,6 +20,9 @@ import { watchRoutes } from "../watches/schema";
 import { memberRoutes } from "../members/schema";
 import { invitationRoutes } from "../invitations/schema";
 import { workspaceRoutes } from "../workspaces/schema";
+import { watchRuleRoutes } from "../watch-rules/schema";
+import { notificationRoutes } from "../notifications/schema";
+import { outboxRoutes } from "../outbox/schema";
 
 const ALL_ROUTES: RouteConfig[] = [
   ...models,
@@ -41,6 +44,9 @@ const ALL_ROUTES: RouteConfig[] = [
   ...memberRoutes,
   ...invitationRoutes,
   ...workspaceRoutes,
+  ...watchRuleRoutes,
+  ...notificationRoutes,
+  ...outboxRoutes,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to
