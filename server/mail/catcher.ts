@@ -30,7 +30,7 @@ export function startMailCatcher({ port, dir, host = "127.0.0.1" }: { port: numb
             text: parsed.text ?? "",
             html: typeof parsed.html === "string" ? parsed.html : null,
             messageId: parsed.messageId ?? null,
-            listUnsubscribe: headerText(parsed.headers.get("list-unsubscribe")),
+            listUnsubscribe: headerText((parsed.headers.get("list") as { unsubscribe?: unknown } | undefined)?.unsubscribe),
           }),
         )
         .then(
@@ -53,7 +53,7 @@ export function startMailCatcher({ port, dir, host = "127.0.0.1" }: { port: numb
   });
 }
 
-/** mailparser hands List-Unsubscribe back parsed into an object; the catcher keeps the raw text form. */
+/** mailparser folds List-Unsubscribe into the "list" header as `{ url }`; the catcher keeps the header's text form. */
 function headerText(value: unknown): string | null {
   if (value == null) return null;
   if (typeof value === "string") return value;

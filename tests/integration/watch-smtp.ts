@@ -24,13 +24,14 @@ export async function startTestSmtp(port: number): Promise<{ received: Received[
     onData(stream, session, callback) {
       simpleParser(stream).then(
         (mail) => {
-          const unsubscribe = mail.headers.get("list-unsubscribe") as { url?: string } | string | undefined;
+          // mailparser folds the List-* headers (RFC 2369) into one "list" header object.
+          const unsubscribe = (mail.headers.get("list") as { unsubscribe?: { url?: string } } | undefined)?.unsubscribe;
           received.push({
             to: session.envelope.rcptTo.map((r) => r.address),
             subject: mail.subject ?? "",
             text: mail.text ?? "",
             messageId: mail.messageId ?? null,
-            listUnsubscribe: typeof unsubscribe === "string" ? unsubscribe : unsubscribe?.url ? `<${unsubscribe.url}>` : null,
+            listUnsubscribe: unsubscribe?.url ? `<${unsubscribe.url}>` : null,
           });
           callback();
         },
