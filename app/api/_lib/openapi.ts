@@ -23,6 +23,7 @@ import { workspaceRoutes } from "../workspaces/schema";
 import { watchRuleRoutes } from "../watch-rules/schema";
 import { notificationRoutes } from "../notifications/schema";
 import { outboxRoutes } from "../outbox/schema";
+import { auditRoutes } from "../audit/schema";
 
 const ALL_ROUTES: RouteConfig[] = [
   ...models,
@@ -47,6 +48,7 @@ const ALL_ROUTES: RouteConfig[] = [
   ...watchRuleRoutes,
   ...notificationRoutes,
   ...outboxRoutes,
+  ...auditRoutes,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to
