@@ -24,6 +24,7 @@ import { watchRuleRoutes } from "../watch-rules/schema";
 import { notificationRoutes } from "../notifications/schema";
 import { outboxRoutes } from "../outbox/schema";
 import { auditRoutes } from "../audit/schema";
+import { annotationRoutes } from "../annotations/schema";
 
 const ALL_ROUTES: RouteConfig[] = [
   ...models,
@@ -49,6 +50,7 @@ const ALL_ROUTES: RouteConfig[] = [
   ...notificationRoutes,
   ...outboxRoutes,
   ...auditRoutes,
+  ...annotationRoutes,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to

@@ -12,6 +12,7 @@ import { RetractForm } from "@/components/atlas/retract-form";
 import { SquarePreview } from "@/components/atlas/square-preview";
 import { tikzSquare, type SquareInput } from "@/components/atlas/tikzSquare";
 import { Panel } from "@/components/ui/panel";
+import { AnnotationsPanel } from "@/components/team/annotations-panel";
 import { getCertificate, getMap, getModel } from "@/db/queries/atlas";
 import { getUserById } from "@/db/queries/users";
 import { env } from "@/env";
@@ -149,6 +150,8 @@ export default async function MapPage({ params }: Props) {
           </div>
         </Panel>
       ) : null}
+
+      <AnnotationsPanel workspaceId={workspace.id} role={role} subjectType="map" subjectId={map.id} />
 
       <Panel title="Certificate JSON">
         <CopyBlock text={prettyJson(certificate.body)} label="Certificate JSON" maxHeight="28rem" />

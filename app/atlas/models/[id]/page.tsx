@@ -12,6 +12,7 @@ import { PageHeader } from "@/components/atlas/page-header";
 import { Skeleton } from "@/components/atlas/skeleton";
 import { Panel } from "@/components/ui/panel";
 import { WatchButton } from "@/components/watch-button";
+import { ModelAnnotations } from "@/components/team/model-annotations";
 import { getModel, listMapsFrom, listMapsTo, listSearchRecords, type MapView } from "@/db/queries/atlas";
 import { getWorkspaceContext } from "@/server/context";
 
@@ -172,6 +173,8 @@ export default async function ModelPage({ params }: Props) {
       <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
         <Edges workspaceId={workspace.id} modelId={model.id} />
       </Suspense>
+
+      <ModelAnnotations workspaceId={workspace.id} modelId={model.id} />
 
       <Panel title="Recorded searches">
         <Suspense fallback={<Skeleton lines={2} label="Loading searches" />}>
