@@ -9,6 +9,6 @@ export function parseDoi(input: string): string | null {
   const match = /^10\.\d+(?:\.\d+)*\/(\S+)$/.exec(text);
   if (!match) return null;
   // Printable ASCII or Unicode; no control characters.
-  if (/[\u0000-\u001f\u007f]/.test(match[1])) return null;
+  if ([...match[1]].some((c) => c.charCodeAt(0) < 0x20 || c.charCodeAt(0) === 0x7f)) return null;
   return text.toLowerCase();
 }
