@@ -89,7 +89,7 @@ export async function revokeInvitationAction(_prev: FormState, form: FormData): 
   if (!parsed.success) return { status: "error", message: "Choose an invitation." };
   const revoked = await revokeInvitation({ workspaceId: workspace.id, id: parsed.data, actorId: user.id }).catch(() => null);
   if (revoked === null) return { status: "error", message: "The invitation could not be revoked just now; nothing was changed." };
-  if (!revoked) return { status: "error", message: "That invitation was already accepted or revoked." };
+  if (!revoked) return { status: "error", message: "No pending invitation like that in this workspace: it was accepted or revoked already." };
   revalidatePath("/members");
   return { status: "ok", message: "Invitation revoked; its link no longer works." };
 }

@@ -41,7 +41,7 @@ export default async function MembersPage() {
         </p>
       </div>
 
-      <div className={admin ? "grid gap-6 lg:grid-cols-[1.6fr_1fr]" : ""}>
+      <div className={admin ? "grid items-start gap-6 lg:grid-cols-[1.6fr_1fr]" : ""}>
         <Panel title={`People (${members.length})`}>
           <ul className="divide-y divide-line" aria-label="Members">
             {members.map((m) => (
@@ -61,7 +61,7 @@ export default async function MembersPage() {
                       label="Change role"
                       select={{ name: "role", label: `Role of ${m.name}`, options: ROLES, value: m.role }}
                     />
-                    <RowAction action={removeMemberAction} hidden={{ userId: m.userId }} label="Remove" variant="danger" />
+                    <RowAction action={removeMemberAction} hidden={{ userId: m.userId }} label="Remove" variant="danger" confirm={`Remove ${m.name} from ${workspace.name}?`} />
                   </span>
                 ) : (
                   <RoleBadge role={m.role} />
@@ -97,7 +97,7 @@ export default async function MembersPage() {
                       </p>
                       <div className="flex justify-end gap-2">
                         <RowAction action={resendInvitationAction} hidden={{ invitationId: i.id }} label="Resend" />
-                        <RowAction action={revokeInvitationAction} hidden={{ invitationId: i.id }} label="Revoke" variant="danger" />
+                        <RowAction action={revokeInvitationAction} hidden={{ invitationId: i.id }} label="Revoke" variant="danger" confirm={`Revoke the invitation of ${i.email}? Its link stops working.`} />
                       </div>
                     </li>
                   ))}

@@ -54,7 +54,7 @@ export default async function NotificationsPage() {
           </form>
         ) : null}
       </div>
-      <div className="grid gap-6 lg:grid-cols-[1.6fr_1fr]">
+      <div className="grid items-start gap-6 lg:grid-cols-[1.6fr_1fr]">
         <Panel title="Certified results you watch">
           {items.length === 0 ? (
             <p className="text-sm text-ink-soft">Nothing yet. Watch a model, a class or a search, and what gets certified appears here.</p>

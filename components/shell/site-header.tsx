@@ -39,7 +39,7 @@ export async function SiteHeader() {
           <span className="text-lg">Squarely</span>
         </Link>
         {user ? (
-          <div className="ml-auto flex items-center gap-3">
+          <div className="ml-auto flex flex-wrap items-center justify-end gap-2 sm:gap-3">
             {context ? (
               <WorkspaceSwitcher
                 options={workspaces.map((w) => ({ id: w.id, name: w.name, role: w.role }))}

@@ -13,16 +13,25 @@ export function RowAction({
   label,
   variant = "secondary",
   select,
+  confirm,
 }: {
   action: Action;
   hidden: Record<string, string>;
   label: string;
   variant?: "secondary" | "quiet" | "danger";
   select?: { name: string; label: string; options: readonly string[]; value: string };
+  /** Asked before submitting (removals, revocations). */
+  confirm?: string;
 }) {
   const [state, formAction, pending] = useActionState(action, { status: "idle" } as FormState);
   return (
-    <form action={formAction} className="flex flex-col items-end gap-1">
+    <form
+      action={formAction}
+      onSubmit={(e) => {
+        if (confirm && !window.confirm(confirm)) e.preventDefault();
+      }}
+      className="flex flex-col items-end gap-1"
+    >
       <div className="flex items-center gap-2">
         {Object.entries(hidden).map(([k, v]) => (
           <input key={k} type="hidden" name={k} value={v} />
