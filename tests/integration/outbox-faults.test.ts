@@ -42,7 +42,7 @@ describe("mail faults", () => {
     // The viewer watches every ECA; the curator watches anything that coarse-grains onto ECA 128.
     await addWatchRule({ workspaceId: ws, userId: seeded.people.viewer.id, scope: "class", modelKind: "eca" });
     const first = await createCertifiedEdge(edgeInput(ws, seeded.people.contributor.id, 146, 128, 3));
-    const onto = (await t.db.query.maps.findFirst({ where: (m, { eq: is }) => eq(m.id, first.mapId) }))!.targetModelId;
+    const onto = (await t.db.query.maps.findFirst({ where: (m, { eq: is }) => is(m.id, first.mapId) }))!.targetModelId;
     await addWatchRule({ workspaceId: ws, userId: seeded.people.curator.id, scope: "onto", modelId: onto });
     await t.db.delete(notificationOutbox);
     await t.db.delete(notifications);
