@@ -269,7 +269,16 @@ export async function notifyWatchersOfMap(db: Executor, e: CertifiedMapEvent): P
   const [actor] = e.actorId ? await db.select({ name: users.name }).from(users).where(eq(users.id, e.actorId)).limit(1) : [];
   const text = certifiedMapText(e, actor?.name ?? "Someone");
   await db.insert(notifications).values(
-    watchers.map((w) => ({ workspaceId: e.workspaceId, userId: w.userId, mapId: e.map.id, title: `${actor?.name ?? "Someone"} certified ${text.title}`, body: text.body, link: `/atlas/maps/${e.map.id}` })),
+    watchers.map((w) => ({
+      workspaceId: e.workspaceId,
+      userId: w.userId,
+      mapId: e.map.id,
+      title: `${actor?.name ?? "Someone"} certified ${text.title}`,
+      body: text.body,
+      link: `/atlas/maps/${e.map.id}`,
+      // Only what happens while someone reads digests goes into a digest.
+      digestedAt: w.delivery === "digest" ? null : new Date(),
+    })),
   );
   const immediate = watchers.filter((w) => w.delivery === "immediate");
   if (immediate.length > 0)
