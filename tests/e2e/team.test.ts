@@ -151,4 +151,26 @@ describe("a team of two watching, and a third invited", () => {
     await expect(again.locator('p[data-reason]').textContent()).resolves.toContain("already accepted");
     for (const p of [admin, c, again]) await p.context().close();
   });
+
+  it("an admin turns on a public read-only view: no sign-in, no members, no mail addresses; turned off, it is gone", async () => {
+    const admin = await signedIn("admin");
+    await admin.goto(`${server.url}/members`);
+    await admin.getByRole("button", { name: "Turn the public view on" }).click();
+    await admin.getByText("The public view is on.").waitFor();
+    const anonymous = await (await browser.newContext()).newPage();
+    const res = await anonymous.goto(`${server.url}/public/${DEMO_WORKSPACE.slug}`);
+    expect(res?.status()).toBe(200);
+    await anonymous.getByText("ECA 146 → ECA 128").first().waitFor();
+    const html = await anonymous.content();
+    for (const p of server.people) {
+      expect(html).not.toContain(p.email);
+      expect(html).not.toContain(p.name);
+    }
+    expect(html).not.toContain("sqt_");
+    await shoot(anonymous, "public-view");
+    await admin.getByRole("button", { name: "Turn the public view off" }).click();
+    await admin.getByText("The public view is off.").waitFor();
+    expect((await anonymous.goto(`${server.url}/public/${DEMO_WORKSPACE.slug}`))?.status()).toBe(404);
+    for (const p of [admin, anonymous]) await p.context().close();
+  });
 });
