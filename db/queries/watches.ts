@@ -1,6 +1,7 @@
 import "server-only";
 import { and, asc, eq, inArray, ne, or, sql, type SQL } from "drizzle-orm";
 import {
+  maps,
   memberships,
   models,
   notificationOutbox,
@@ -13,6 +14,8 @@ import {
   type WATCH_SCOPES,
   type WatchRule,
 } from "@/db/schema";
+import { env } from "@/env";
+import { unsubscribeUrl } from "@/lib/policy";
 import { type Executor, getDatabase, withDb } from "./connection";
 
 type ModelKind = (typeof MODEL_KINDS)[number];
@@ -190,6 +193,8 @@ const KIND_WORDS: Record<string, string> = {
 };
 
 export type CertifiedMapEvent = {
+  /** A map, or a chain (a proof through several maps) from its first source to its last target. */
+  subject?: "map" | "chain";
   workspaceId: string;
   actorId: string | null;
   map: { id: string; kind: string; block: number | null; steps: number | null; summary: string };
@@ -213,7 +218,7 @@ async function matchingWatchers(db: Executor, e: CertifiedMapEvent) {
     and(eq(watchRules.scope, "class"), inArray(watchRules.modelKind, [e.source.kind, e.target.kind] as ModelKind[])),
     and(eq(watchRules.scope, "onto"), eq(watchRules.modelId, e.target.id)),
   ];
-  if (e.map.kind === "lumping") ruleMatches.push(and(eq(watchRules.scope, "lumping-of"), eq(watchRules.modelId, e.source.id)));
+  if (e.map.kind === "lumping" && e.subject !== "chain") ruleMatches.push(and(eq(watchRules.scope, "lumping-of"), eq(watchRules.modelId, e.source.id)));
   const byRule = db
     .select({ userId: watchRules.userId })
     .from(watchRules)
@@ -239,12 +244,19 @@ function partitionOf(body: string): number[] | null {
   }
 }
 
+function pagePath(e: CertifiedMapEvent): string {
+  return e.subject === "chain" ? `/chains/${e.map.id}` : `/atlas/maps/${e.map.id}`;
+}
+
 /** "ECA 146 → ECA 128, projection at block 3" and the lines of the mail. */
 export function certifiedMapText(e: CertifiedMapEvent, actorName: string) {
   const partition = partitionOf(e.certificateBody);
   const shape = partition ? `Partition: ${JSON.stringify(partition)}` : e.map.block ? `Block size: ${e.map.block}` : e.map.steps ? `Steps: ${e.map.steps}` : null;
-  const title = `${e.source.name} → ${e.target.name}, ${e.map.kind}${e.map.block ? ` at block ${e.map.block}` : ""}`;
-  const link = `${e.linkBase}/atlas/maps/${e.map.id}`;
+  const title =
+    e.subject === "chain"
+      ? `${e.source.name} → ${e.target.name}, chain “${e.map.summary}”`
+      : `${e.source.name} → ${e.target.name}, ${e.map.kind}${e.map.block ? ` at block ${e.map.block}` : ""}`;
+  const link = `${e.linkBase}${pagePath(e)}`;
   const body = [
     `${actorName} certified ${title}.`,
     "",
@@ -272,10 +284,10 @@ export async function notifyWatchersOfMap(db: Executor, e: CertifiedMapEvent): P
     watchers.map((w) => ({
       workspaceId: e.workspaceId,
       userId: w.userId,
-      mapId: e.map.id,
+      mapId: e.subject === "chain" ? null : e.map.id,
       title: `${actor?.name ?? "Someone"} certified ${text.title}`,
       body: text.body,
-      link: `/atlas/maps/${e.map.id}`,
+      link: pagePath(e),
       // Only what happens while someone reads digests goes into a digest.
       digestedAt: w.delivery === "digest" ? null : new Date(),
     })),
@@ -291,7 +303,7 @@ export async function notifyWatchersOfMap(db: Executor, e: CertifiedMapEvent): P
           toAddress: w.email,
           subject: `Certified: ${text.title}`,
           body: unsubscribe ? `${text.body}\n\nStop these mails with one click: ${unsubscribe}\n` : `${text.body}\n`,
-          mapId: e.map.id,
+          mapId: e.subject === "chain" ? null : e.map.id,
           unsubscribeUrl: unsubscribe,
         };
       }),
@@ -319,10 +331,13 @@ export async function notifyWatchers({
 }): Promise<number> {
   const conditions: SQL[] = [eq(watches.workspaceId, workspaceId), inArray(watches.modelId, modelIds)];
   if (exceptUserId) conditions.push(ne(watches.userId, exceptUserId));
+  // Members who turned watch mail off (or read digests) get no mail for a retraction either.
+  conditions.push(eq(memberships.mailDelivery, "immediate"));
   const watchers = await db
     .selectDistinct({ userId: users.id, email: users.email })
     .from(watches)
     .innerJoin(users, eq(users.id, watches.userId))
+    .innerJoin(memberships, and(eq(memberships.userId, watches.userId), eq(memberships.workspaceId, watches.workspaceId)))
     .where(and(...conditions))
     .all();
   if (watchers.length === 0) return 0;
@@ -330,4 +345,29 @@ export async function notifyWatchers({
     .insert(notificationOutbox)
     .values(watchers.map((w) => ({ workspaceId, userId: w.userId, toAddress: w.email, subject, body, mapId })));
   return watchers.length;
+}
+
+/**
+ * A stored chain announced like a map: from the first link's source to the last link's target, to
+ * the watchers of either model, of their classes, or of anything onto the target.
+ */
+export async function notifyWatchersOfChain(
+  db: Executor,
+  c: { workspaceId: string; actorId: string | null; chainId: string; name: string; firstMapId: string; lastMapId: string; certificateAddress: string; certificateBody: string },
+): Promise<number> {
+  const [first] = await db.select({ id: models.id, kind: models.kind, name: models.name }).from(maps).innerJoin(models, eq(models.id, maps.sourceModelId)).where(eq(maps.id, c.firstMapId)).limit(1);
+  const [last] = await db.select({ id: models.id, kind: models.kind, name: models.name }).from(maps).innerJoin(models, eq(models.id, maps.targetModelId)).where(eq(maps.id, c.lastMapId)).limit(1);
+  if (!first || !last) return 0;
+  return notifyWatchersOfMap(db, {
+    subject: "chain",
+    workspaceId: c.workspaceId,
+    actorId: c.actorId,
+    map: { id: c.chainId, kind: "chain", block: null, steps: null, summary: c.name },
+    source: first,
+    target: last,
+    certificateAddress: c.certificateAddress,
+    certificateBody: c.certificateBody,
+    linkBase: env.APP_URL,
+    unsubscribeLink: (userId) => unsubscribeUrl({ appUrl: env.APP_URL, secret: env.AUTH_SECRET, workspaceId: c.workspaceId, userId }),
+  });
 }

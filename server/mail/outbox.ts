@@ -119,7 +119,8 @@ export function createOutboxDelivery(options: DeliveryOptions): OutboxDelivery {
 
   async function pass(): Promise<DeliveryReport> {
     const report: DeliveryReport = { sent: 0, retrying: 0, failed: 0 };
-    await options.beforePass?.(now());
+    // A failing digest query must not hold up the mail that is already queued.
+    await options.beforePass?.(now()).catch((err: unknown) => console.error("mail outbox: before the pass:", err));
     const claimed = await claimDueOutbox({ db: options.db, owner, now: now(), leaseMs: options.leaseMs ?? LEASE_MS, limit: options.batch ?? 50 });
     for (const message of claimed) await deliverOne(message, report);
     return report;

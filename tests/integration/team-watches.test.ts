@@ -6,6 +6,7 @@ import * as auditRoute from "@/app/api/audit/route";
 import * as currentWorkspace from "@/app/api/workspaces/current/route";
 import * as unsubscribeRoute from "@/app/unsubscribe/route";
 import { setDatabase } from "@/db/queries/connection";
+import { createChain } from "@/db/queries/chains";
 import { createCertifiedEdge } from "@/db/queries/maps";
 import { getMailDelivery, setMailDelivery } from "@/db/queries/memberships";
 import { countUnreadNotifications, markNotificationsRead, queueDueDigests } from "@/db/queries/notifications";
@@ -144,6 +145,27 @@ describe("watching classes and saved searches", () => {
     const after = await createCertifiedEdge(edgeInput(ws, seeded.people.contributor.id, 60, 128, 2));
     expect(await mailTo(curator, after.mapId)).toEqual([]);
     expect(await noticesOf(curator, after.mapId)).toHaveLength(1);
+  });
+});
+
+describe("a certified chain", () => {
+  it("is announced like a map: one notification and one mail per matching watcher, linking the chain's page", async () => {
+    const viewer = seeded.people.viewer.id;
+    const map = (await t.db.query.maps.findMany()).find((m) => m.summary === "ECA 146 → ECA 128 at block 3")!;
+    const body = JSON.stringify({ kind: "chain", links: [map.certificateAddress] });
+    const stored = await createChain({
+      workspaceId: ws,
+      userId: seeded.people.contributor.id,
+      name: "Proof by one square",
+      mapIds: [map.id],
+      composite: { address: `sha256:${"c".repeat(64)}`, kind: "projection", formatVersion: 1, body, checkerVersion: "test", verifiedAt: new Date() },
+      verification: "links",
+    });
+    const notes = (await t.db.select().from(notifications).where(eq(notifications.userId, viewer)).all()).filter((n) => n.link === `/chains/${stored.chainId}`);
+    expect(notes.map((n) => [n.title, n.mapId])).toEqual([["The contributor certified ECA 146 → ECA 128, chain “Proof by one square”", null]]);
+    const mails = (await t.db.select().from(notificationOutbox).where(eq(notificationOutbox.userId, viewer)).all()).filter((m) => m.subject.includes("chain"));
+    expect(mails.map((m) => m.subject)).toEqual(["Certified: ECA 146 → ECA 128, chain “Proof by one square”"]);
+    expect(mails[0].body).toContain(`/chains/${stored.chainId}`);
   });
 });
 
