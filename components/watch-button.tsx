@@ -59,6 +59,9 @@ export function WatchButton({ modelId, initial }: { modelId: string; initial?: O
       <span className="text-xs text-ink-soft" aria-live="polite">
         {error ?? (watching ? "You get mail when a certified map touches this model." : "")}
       </span>
+      <a href="/notifications" className="text-xs text-tide-700 underline">
+        Watch a class or a search instead
+      </a>
     </div>
   );
 }

@@ -17,6 +17,9 @@ export const MAP_STATUSES = ["certified", "retracted"] as const;
 export const DERIVATIONS = ["reflect", "complement", "reflect-complement"] as const;
 export const JOB_STATUSES = ["queued", "running", "succeeded", "failed", "cancelled"] as const;
 export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
+export const MAIL_DELIVERIES = ["immediate", "digest", "off"] as const;
+export const WATCH_SCOPES = ["class", "onto", "lumping-of"] as const;
+export const ANNOTATION_KINDS = ["note", "tag", "published"] as const;
 
 export const users = sqliteTable("users", {
   id: id(),
@@ -43,6 +46,8 @@ export const workspaces = sqliteTable("workspaces", {
   id: id(),
   slug: text("slug").notNull().unique(),
   name: text("name").notNull(),
+  /** Whether anyone, signed in or not, may read the atlas at /public/<slug> (no members, addresses or tokens). */
+  publicView: integer("public_view", { mode: "boolean" }).notNull().default(false),
   createdAt: createdAt(),
 });
 export type Workspace = InferSelectModel<typeof workspaces>;
@@ -57,6 +62,8 @@ export const memberships = sqliteTable(
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
     role: text("role", { enum: ROLES }).notNull(),
+    /** How watch mail reaches this member: each event at once, one daily digest, or none (unsubscribed). */
+    mailDelivery: text("mail_delivery", { enum: MAIL_DELIVERIES }).notNull().default("immediate"),
     createdAt: createdAt(),
   },
   (t) => [primaryKey({ columns: [t.workspaceId, t.userId] }), index("memberships_user_idx").on(t.userId)],
@@ -251,6 +258,13 @@ export const notificationOutbox = sqliteTable(
     attempts: integer("attempts").notNull().default(0),
     lastError: text("last_error"),
     sentAt: integer("sent_at", { mode: "timestamp_ms" }),
+    /** Not tried again before this time (back-off); null means at once. */
+    nextAttemptAt: integer("next_attempt_at", { mode: "timestamp_ms" }),
+    /** The process that claimed the row for delivery, and until when; another process waits for the lease to end. */
+    leaseOwner: text("lease_owner"),
+    leaseExpiresAt: integer("lease_expires_at", { mode: "timestamp_ms" }),
+    /** One-click unsubscribe address for the List-Unsubscribe header (RFC 2369, RFC 8058); null for mail that is not watch mail. */
+    unsubscribeUrl: text("unsubscribe_url"),
     createdAt: createdAt(),
   },
   (t) => [index("outbox_status_idx").on(t.status)],
@@ -335,3 +349,93 @@ export const rateLimits = sqliteTable("rate_limits", {
   windowStart: integer("window_start", { mode: "timestamp_ms" }).notNull(),
 });
 export type RateLimit = InferSelectModel<typeof rateLimits>;
+/** An invitation to a workspace: the link's token is mailed, only its SHA-256 is stored. */
+export const invitations = sqliteTable(
+  "invitations",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: text("role", { enum: ROLES }).notNull(),
+    tokenHash: text("token_hash").notNull().unique(),
+    invitedBy: text("invited_by").references(() => users.id, { onDelete: "set null" }),
+    expiresAt: integer("expires_at", { mode: "timestamp_ms" }).notNull(),
+    acceptedAt: integer("accepted_at", { mode: "timestamp_ms" }),
+    acceptedBy: text("accepted_by").references(() => users.id, { onDelete: "set null" }),
+    revokedAt: integer("revoked_at", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("invitations_workspace_idx").on(t.workspaceId)],
+);
+export type Invitation = InferSelectModel<typeof invitations>;
+
+/**
+ * Watching more than one model: a whole class ("every ECA": scope class, modelKind eca), or a saved
+ * search ("anything that coarse-grains onto ECA 128": scope onto; "any lumping of this chain": scope lumping-of).
+ */
+export const watchRules = sqliteTable(
+  "watch_rules",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    scope: text("scope", { enum: WATCH_SCOPES }).notNull(),
+    modelKind: text("model_kind", { enum: MODEL_KINDS }),
+    modelId: text("model_id").references(() => models.id, { onDelete: "cascade" }),
+    createdAt: createdAt(),
+  },
+  (t) => [
+    uniqueIndex("watch_rules_uq").on(t.userId, t.workspaceId, t.scope, t.modelKind, t.modelId),
+    index("watch_rules_workspace_idx").on(t.workspaceId),
+  ],
+);
+export type WatchRule = InferSelectModel<typeof watchRules>;
+
+/** The in-app notification list: one row per watcher and certified map. */
+export const notifications = sqliteTable(
+  "notifications",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    mapId: text("map_id"),
+    title: text("title").notNull(),
+    body: text("body").notNull(),
+    link: text("link").notNull(),
+    readAt: integer("read_at", { mode: "timestamp_ms" }),
+    /** Set when a daily digest included it (digest watchers only). */
+    digestedAt: integer("digested_at", { mode: "timestamp_ms" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("notifications_user_idx").on(t.userId, t.workspaceId, t.readAt)],
+);
+export type Notification = InferSelectModel<typeof notifications>;
+
+/** Curators' and contributors' notes, tags and "published in" references on models and maps. */
+export const annotations = sqliteTable(
+  "annotations",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    subjectType: text("subject_type", { enum: ["model", "map"] }).notNull(),
+    subjectId: text("subject_id").notNull(),
+    kind: text("kind", { enum: ANNOTATION_KINDS }).notNull(),
+    text: text("text").notNull(),
+    authorId: text("author_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("annotations_subject_idx").on(t.workspaceId, t.subjectType, t.subjectId)],
+);
+export type Annotation = InferSelectModel<typeof annotations>;

@@ -5,12 +5,13 @@ import { ActivityList } from "@/components/dashboard/activity-list";
 import { Panel } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { listMembers } from "@/db/queries/memberships";
-import { listActivity } from "@/db/queries/notes";
-import { getWorkspaceSummary } from "@/db/queries/workspaces";
-import { ACTIONS, LEAST_ROLE, can, refusalReason } from "@/lib/policy";
+import { describeWatch, listWorkspaceWatches } from "@/db/queries/watches";
+import { getWorkspaceSummary, listActiveJobs, listRecentChains, listRecentMaps } from "@/db/queries/workspaces";
+import { can, refusalReason } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
+import { readableLog } from "@/server/team/log";
 
-export const metadata: Metadata = { title: "Dashboard" };
+export const metadata: Metadata = { title: "Workspace home" };
 
 const COUNTS = [
   { key: "models", label: "Models", href: "/atlas" },
@@ -19,15 +20,19 @@ const COUNTS = [
   { key: "jobs", label: "Jobs", href: "/jobs" },
 ] as const;
 
+const DAY = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
+
 export default async function DashboardPage() {
   const { user, workspace, role } = await getWorkspaceContext();
-  const [summary, members, activity] = await Promise.all([
+  const [summary, members, log, recent, chains, running, watches] = await Promise.all([
     getWorkspaceSummary({ workspaceId: workspace.id }),
     listMembers({ workspaceId: workspace.id }),
-    listActivity({ workspaceId: workspace.id, limit: 15 }),
+    readableLog({ workspaceId: workspace.id, limit: 15 }),
+    listRecentMaps({ workspaceId: workspace.id, limit: 6 }),
+    listRecentChains({ workspaceId: workspace.id, limit: 4 }),
+    listActiveJobs({ workspaceId: workspace.id, limit: 5 }),
+    listWorkspaceWatches({ workspaceId: workspace.id }),
   ]);
-  const allowed = ACTIONS.filter((a) => can(role, a));
-  const refused = ACTIONS.filter((a) => !can(role, a));
 
   return (
     <div className="mx-auto max-w-6xl space-y-6 px-5 py-8">
@@ -55,51 +60,99 @@ export default async function DashboardPage() {
       </dl>
 
       <div className="grid gap-6 lg:grid-cols-[1.6fr_1fr]">
-        <Panel title="Workspace log">
-          {can(role, "note:post") ? (
-            <NoteForm />
-          ) : (
-            <p className="rounded-md bg-paper px-3 py-2 text-sm text-ink-soft">{refusalReason(role, "note:post")} You can read the log.</p>
-          )}
-          <div className="mt-5 border-t border-line pt-4">
-            <ActivityList items={activity} />
-          </div>
-        </Panel>
+        <div className="min-w-0 space-y-6">
+          <Panel title="Recently certified">
+            {recent.length === 0 && chains.length === 0 ? (
+              <p className="text-sm text-ink-soft">No certified map yet.</p>
+            ) : (
+              <ul className="divide-y divide-line">
+                {recent.map((m) => (
+                  <li key={m.id} className="flex flex-wrap items-baseline justify-between gap-x-3 py-2">
+                    <Link href={`/atlas/maps/${m.id}`} className="min-w-0 text-sm font-medium text-tide-800 hover:underline">
+                      {m.sourceName} → {m.targetName}, {m.kind}
+                      {m.block ? ` at block ${m.block}` : ""}
+                    </Link>
+                    <span className="text-xs text-ink-faint">
+                      {m.authorName ?? "someone"} · {DAY.format(m.createdAt)}
+                    </span>
+                  </li>
+                ))}
+                {chains.map((c) => (
+                  <li key={c.id} className="flex flex-wrap items-baseline justify-between gap-x-3 py-2">
+                    <span className="text-sm font-medium">Chain “{c.name}”</span>
+                    <span className="text-xs text-ink-faint">
+                      {c.authorName ?? "someone"} · {DAY.format(c.createdAt)}
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            )}
+          </Panel>
+          <Panel title="Workspace log">
+            {can(role, "note:post") ? (
+              <NoteForm />
+            ) : (
+              <p className="rounded-md bg-paper px-3 py-2 text-sm text-ink-soft">{refusalReason(role, "note:post")} You can read the log.</p>
+            )}
+            <div className="mt-5 border-t border-line pt-4">
+              <ActivityList items={log} />
+            </div>
+            {can(role, "audit:browse") ? (
+              <p className="mt-4 text-right text-sm">
+                <Link href="/audit" className="text-tide-700 underline">
+                  Browse the full audit log
+                </Link>
+              </p>
+            ) : null}
+          </Panel>
+        </div>
 
-        <div className="space-y-6">
-          <Panel title={`Members (${summary.members})`}>
+        <div className="min-w-0 space-y-6">
+          <Panel title={`Running jobs (${running.length})`}>
+            {running.length === 0 ? (
+              <p className="text-sm text-ink-soft">No job is queued or running.</p>
+            ) : (
+              <ul className="divide-y divide-line">
+                {running.map((j) => (
+                  <li key={j.id} className="flex items-center justify-between gap-2 py-2 text-sm">
+                    <Link href={`/jobs/${j.id}`} className="truncate text-tide-800 hover:underline">
+                      {j.kind}
+                    </Link>
+                    <span className="text-xs text-ink-faint">
+                      {j.ownerName ?? "someone"} · {j.status} {Math.round(j.progress * 100)}%
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            )}
+          </Panel>
+          <Panel title="Who watches what">
+            {watches.length === 0 ? (
+              <p className="text-sm text-ink-soft">Nobody watches anything yet.</p>
+            ) : (
+              <ul className="space-y-1.5">
+                {watches.map((w) => (
+                  <li key={w.id} className="text-sm">
+                    <span className="font-medium">{w.userName}</span> <span className="text-ink-soft">watches {describeWatch(w)}</span>
+                  </li>
+                ))}
+              </ul>
+            )}
+            <p className="mt-3 text-right text-sm">
+              <Link href="/notifications" className="text-tide-700 underline">
+                Your watches and notifications
+              </Link>
+            </p>
+          </Panel>
+          <Panel title={`Members (${summary.members})`} action={<Link href="/members" className="text-sm text-tide-700 underline">{can(role, "member:invite") ? "Invite" : "All"}</Link>}>
             <ul className="divide-y divide-line">
               {members.map((m) => (
                 <li key={m.userId} className="flex items-center justify-between gap-3 py-2">
-                  <span className="min-w-0">
-                    <span className="block truncate text-sm font-medium">{m.name}</span>
-                    <span className="block truncate text-xs text-ink-faint">{m.email}</span>
-                  </span>
+                  <span className="min-w-0 truncate text-sm font-medium">{m.name}</span>
                   <RoleBadge role={m.role} />
                 </li>
               ))}
             </ul>
-          </Panel>
-          <Panel title="What your role allows">
-            <ul className="flex flex-wrap gap-1.5">
-              {allowed.map((a) => (
-                <li key={a} className="rounded bg-moss-50 px-2 py-0.5 font-mono text-xs text-moss-700">
-                  {a}
-                </li>
-              ))}
-            </ul>
-            {refused.length > 0 ? (
-              <>
-                <p className="mb-2 mt-4 text-xs text-ink-faint">Needs a higher role:</p>
-                <ul className="flex flex-wrap gap-1.5">
-                  {refused.map((a) => (
-                    <li key={a} className="rounded bg-paper px-2 py-0.5 font-mono text-xs text-ink-faint" title={`needs ${LEAST_ROLE[a]}`}>
-                      {a}
-                    </li>
-                  ))}
-                </ul>
-              </>
-            ) : null}
           </Panel>
         </div>
       </div>

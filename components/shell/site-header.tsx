@@ -6,6 +6,9 @@ import { getSessionUser, getWorkspaceContext, listMyWorkspaces } from "@/server/
 import { BrandMark } from "./brand-mark";
 import { NavLinks, type NavLink } from "./nav-links";
 import { WorkspaceSwitcher } from "./workspace-switcher";
+import { NotificationsBadge } from "./notifications-badge";
+import { countUnreadNotifications } from "@/db/queries/notifications";
+import { can } from "@/lib/policy";
 
 const SIGNED_IN_LINKS: NavLink[] = [
   { href: "/dashboard", label: "Dashboard" },
@@ -14,6 +17,7 @@ const SIGNED_IN_LINKS: NavLink[] = [
   { href: "/atlas/ask", label: "Ask" },
   { href: "/chains/new", label: "New chain" },
   { href: "/jobs", label: "Jobs" },
+  { href: "/members", label: "Members" },
   { href: "/settings/tokens", label: "Tokens" },
   { href: "/api-docs", label: "API" },
 ];
@@ -22,7 +26,10 @@ export async function SiteHeader() {
   const user = await getSessionUser();
   const workspaces = user ? await listMyWorkspaces() : [];
   const context = user && workspaces.length > 0 ? await getWorkspaceContext() : null;
-  const links = user && isMailOperator(user.email) ? [...SIGNED_IN_LINKS, { href: "/dev/mail", label: "Mail" }] : SIGNED_IN_LINKS;
+  const unread = context ? await countUnreadNotifications({ workspaceId: context.workspace.id, userId: context.user.id }).catch(() => 0) : 0;
+  const adminLinks = context && can(context.role, "audit:browse") ? [{ href: "/audit", label: "Audit log" }, { href: "/outbox", label: "Outbox" }] : [];
+  const withAdmin = [...SIGNED_IN_LINKS, ...adminLinks];
+  const links = user && isMailOperator(user.email) ? [...withAdmin, { href: "/dev/mail", label: "Mail" }] : withAdmin;
 
   return (
     <header className="bg-tide-900 text-paper-raised">
@@ -32,7 +39,7 @@ export async function SiteHeader() {
           <span className="text-lg">Squarely</span>
         </Link>
         {user ? (
-          <div className="ml-auto flex items-center gap-3">
+          <div className="ml-auto flex flex-wrap items-center justify-end gap-2 sm:gap-3">
             {context ? (
               <WorkspaceSwitcher
                 options={workspaces.map((w) => ({ id: w.id, name: w.name, role: w.role }))}
@@ -40,6 +47,10 @@ export async function SiteHeader() {
                 action={switchWorkspace}
               />
             ) : null}
+            <Link href="/workspaces/new" className="hidden rounded-md px-2 py-1.5 text-sm text-tide-100 hover:text-paper-raised sm:inline">
+              + Workspace
+            </Link>
+            {context ? <NotificationsBadge unread={unread} /> : null}
             <span className="hidden text-sm text-tide-100 md:inline" title={user.email}>
               {user.name}
             </span>

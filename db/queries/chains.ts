@@ -7,6 +7,7 @@ import { storeCertificate, type VerifiedCertificate } from "./certificates";
 import { type Executor, getDatabase, isUniqueViolation, withDb, wrapDbError } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
 import { getMap, type MapView } from "./maps";
+import { notifyWatchersOfChain } from "./watches";
 
 export type ChainView = Chain & { links: MapView[] };
 
@@ -59,6 +60,16 @@ export async function createChain({
         subjectType: "chain",
         subjectId: chain.id,
         detail: { composite: composite.address, mapIds, verification },
+      });
+      await notifyWatchersOfChain(tx, {
+        workspaceId,
+        actorId: userId,
+        chainId: chain.id,
+        name,
+        firstMapId: mapIds[0],
+        lastMapId: mapIds[mapIds.length - 1],
+        certificateAddress: composite.address,
+        certificateBody: composite.body,
       });
       return { status: "created" as const, chainId: chain.id, address: composite.address };
     });

@@ -1,20 +1,20 @@
 import "server-only";
-import { and, asc, eq, gt, inArray, ne, sql, type SQL } from "drizzle-orm";
+import { and, asc, eq, gt, inArray, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import {
   auditEvents,
   certificates,
   maps,
   models,
-  notificationOutbox,
-  users,
-  watches,
   type AtlasMap,
   type DERIVATIONS,
   type MAP_KINDS,
 } from "@/db/schema";
 import { AppError } from "@/server/errors";
+import { env } from "@/env";
+import { unsubscribeUrl } from "@/lib/policy";
 import { recordAuditEvent } from "./audit";
+import { notifyWatchers, notifyWatchersOfMap } from "./watches";
 import { storeCertificate, type VerifiedCertificate } from "./certificates";
 import { type Executor, getDatabase, isUniqueViolation, withDb, wrapDbError } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
@@ -95,24 +95,16 @@ export async function createCertifiedEdge(
         detail: { certificate: certificate.address, kind: map.kind, source: source.address, target: target.address },
       });
       await step("audit");
-      await notifyWatchers({
-        db: tx,
+      await notifyWatchersOfMap(tx, {
         workspaceId,
-        modelIds: [source.id, target.id],
-        exceptUserId: input.userId,
-        mapId: map.id,
-        subject: `New certified map: ${source.name} → ${target.name}`,
-        body: [
-          input.map.summary,
-          definitionLine(certificate.body),
-          `Certified by ${await authorName(tx, input.userId)}; the server verified the certificate before storing it.`,
-          "",
-          `Certificate ${certificate.address}`,
-          `${input.linkBase ?? ""}/atlas/maps/${map.id}`,
-          "",
-        ]
-          .filter((line) => line !== null)
-          .join("\n"),
+        actorId: input.userId,
+        map,
+        source,
+        target,
+        certificateAddress: certificate.address,
+        certificateBody: certificate.body,
+        linkBase: input.linkBase ?? "",
+        unsubscribeLink: input.linkBase ? (userId) => unsubscribeUrl({ appUrl: input.linkBase!, secret: env.AUTH_SECRET, workspaceId, userId }) : null,
       });
       await step("outbox");
       return { status: "created" as const, mapId: map.id, address: certificate.address };
@@ -154,61 +146,6 @@ async function findMapByCertificate({
     .from(maps)
     .where(and(eq(maps.workspaceId, workspaceId), eq(maps.certificateAddress, address)))
     .get();
-}
-
-/**
- * What the map is, for a watcher's mail, so that two maps between the same models read apart: the
- * projection as the coarse symbol of each block state (states 0…0 to 1…1 in order) or the partition
- * as the block of each state; null for other kinds.
- */
-export function definitionLine(certificateBody: string): string | null {
-  try {
-    const map = (JSON.parse(certificateBody) as { map?: { projection?: unknown; partition?: unknown } }).map;
-    if (Array.isArray(map?.projection)) return `Projection (coarse symbol of each block state, 0…0 first): ${map.projection.join("")}`;
-    if (Array.isArray(map?.partition)) return `Partition (block of each state, in order): ${map.partition.join(", ")}`;
-  } catch {
-    // a body that is not JSON has no definition to show
-  }
-  return null;
-}
-
-async function authorName(db: Executor, userId: string | null): Promise<string> {
-  if (!userId) return "the atlas's seed";
-  const row = await db.select({ name: users.name }).from(users).where(eq(users.id, userId)).get();
-  return row?.name ?? "a former member";
-}
-
-/** One pending outbox message per person watching any of the models (the actor excepted). */
-async function notifyWatchers({
-  db,
-  workspaceId,
-  modelIds,
-  exceptUserId,
-  mapId,
-  subject,
-  body,
-}: {
-  db: Executor;
-  workspaceId: string;
-  modelIds: string[];
-  exceptUserId: string | null;
-  mapId: string;
-  subject: string;
-  body: string;
-}): Promise<number> {
-  const conditions: SQL[] = [eq(watches.workspaceId, workspaceId), inArray(watches.modelId, modelIds)];
-  if (exceptUserId) conditions.push(ne(watches.userId, exceptUserId));
-  const watchers = await db
-    .selectDistinct({ userId: users.id, email: users.email })
-    .from(watches)
-    .innerJoin(users, eq(users.id, watches.userId))
-    .where(and(...conditions))
-    .all();
-  if (watchers.length === 0) return 0;
-  await db
-    .insert(notificationOutbox)
-    .values(watchers.map((w) => ({ workspaceId, userId: w.userId, toAddress: w.email, subject, body, mapId })));
-  return watchers.length;
 }
 
 const sourceModel = alias(models, "source_model");

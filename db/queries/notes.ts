@@ -1,6 +1,6 @@
 import "server-only";
-import { and, count, desc, eq } from "drizzle-orm";
-import { auditEvents, users } from "../schema";
+import { and, asc, count, desc, eq } from "drizzle-orm";
+import { annotations, auditEvents, maps, models, users, type ANNOTATION_KINDS } from "../schema";
 import { getDatabase, withDb, type Executor } from "./connection";
 
 /** Notes are lines in the workspace's audit log, so they sit in the same timeline as certified maps. */
@@ -78,4 +78,68 @@ function parseDetail(text: string): Record<string, unknown> {
   } catch {
     return {};
   }
+}
+
+export type AnnotationKind = (typeof ANNOTATION_KINDS)[number];
+export type AnnotationView = { id: string; kind: AnnotationKind; text: string; authorName: string | null; createdAt: Date };
+
+/**
+ * Adds a note, tag or "published in" reference to a model or map of the workspace, with its audit
+ * event, in one transaction. Null when the model or map is not in the workspace. A tag already on
+ * the record is not added twice.
+ */
+export async function addAnnotation({
+  db = getDatabase(),
+  workspaceId,
+  subjectType,
+  subjectId,
+  kind,
+  text,
+  authorId,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  subjectType: "model" | "map";
+  subjectId: string;
+  kind: AnnotationKind;
+  text: string;
+  authorId: string;
+}): Promise<{ id: string } | null> {
+  return withDb("saving a note", () =>
+    db.transaction(async (tx) => {
+      const table = subjectType === "model" ? models : maps;
+      const [subject] = await tx
+        .select({ id: table.id })
+        .from(table)
+        .where(and(eq(table.workspaceId, workspaceId), eq(table.id, subjectId)))
+        .limit(1);
+      if (!subject) return null;
+      const where = and(eq(annotations.workspaceId, workspaceId), eq(annotations.subjectType, subjectType), eq(annotations.subjectId, subjectId), eq(annotations.kind, kind), eq(annotations.text, text));
+      if (kind !== "note") {
+        const [same] = await tx.select({ id: annotations.id }).from(annotations).where(where).limit(1);
+        if (same) return same;
+      }
+      const [row] = await tx.insert(annotations).values({ workspaceId, subjectType, subjectId, kind, text, authorId }).returning({ id: annotations.id });
+      await tx.insert(auditEvents).values({
+        workspaceId,
+        actorId: authorId,
+        action: "annotation:add",
+        subjectType,
+        subjectId,
+        detail: JSON.stringify({ kind, text: text.slice(0, 200), subjectType }),
+      });
+      return row;
+    }),
+  );
+}
+
+export async function listAnnotations({ db = getDatabase(), workspaceId, subjectType, subjectId }: { db?: Executor; workspaceId: string; subjectType: "model" | "map"; subjectId: string }): Promise<AnnotationView[]> {
+  return withDb("reading notes", () =>
+    db
+      .select({ id: annotations.id, kind: annotations.kind, text: annotations.text, authorName: users.name, createdAt: annotations.createdAt })
+      .from(annotations)
+      .leftJoin(users, eq(users.id, annotations.authorId))
+      .where(and(eq(annotations.workspaceId, workspaceId), eq(annotations.subjectType, subjectType), eq(annotations.subjectId, subjectId)))
+      .orderBy(asc(annotations.createdAt)),
+  );
 }

@@ -19,6 +19,16 @@ export const ACTIONS = [
   "map:retract",
   "job:cancel-any",
   "member:manage",
+  "member:invite",
+  "invitation:revoke",
+  "member:change-role",
+  "member:remove",
+  "workspace:publish",
+  "outbox:manage",
+  "audit:browse",
+  "annotation:note",
+  "annotation:tag",
+  "map:mark-published",
 ] as const;
 export type Action = (typeof ACTIONS)[number];
 
@@ -37,6 +47,16 @@ export const LEAST_ROLE: Record<Action, Role> = {
   "map:retract": "curator",
   "job:cancel-any": "admin",
   "member:manage": "admin",
+  "member:invite": "admin",
+  "invitation:revoke": "admin",
+  "member:change-role": "admin",
+  "member:remove": "admin",
+  "workspace:publish": "admin",
+  "outbox:manage": "admin",
+  "audit:browse": "admin",
+  "annotation:note": "contributor",
+  "annotation:tag": "contributor",
+  "map:mark-published": "contributor",
 };
 
 export function roleRank(role: Role): number {
@@ -63,3 +83,5 @@ export function isRoleWithin(granted: Role, owner: Role): boolean {
 export function isRole(value: unknown): value is Role {
   return typeof value === "string" && (ROLES as readonly string[]).includes(value);
 }
+
+export { isUnsubscribeToken, unsubscribeToken, unsubscribeUrl } from "./unsubscribeToken";

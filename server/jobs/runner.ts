@@ -2,6 +2,7 @@ import { env } from "@/env";
 import { getDatabase } from "@/db/queries/connection";
 import { sendMail } from "@/server/mail/send";
 import { createOutboxDelivery, type OutboxDelivery } from "@/server/mail/outbox";
+import { queueDigests } from "@/server/mail/digest";
 import { createJobRunner, type JobRunner } from "./job-runner";
 import "./kinds";
 
@@ -26,7 +27,7 @@ async function start(): Promise<Started> {
     runner = createJobRunner({ db, workers: env.JOB_WORKERS });
     await runner.start();
   }
-  const outbox = createOutboxDelivery({ db, send: sendMail });
+  const outbox = createOutboxDelivery({ db, send: sendMail, messageIdDomain: new URL(env.APP_URL).hostname, beforePass: queueDigests });
   outbox.start();
   void outbox.deliverDue().catch((err) => console.error("mail outbox:", err));
   console.log(`job runner: ${env.JOB_WORKERS} worker thread(s); mail outbox delivery started`);

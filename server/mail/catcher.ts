@@ -29,6 +29,8 @@ export function startMailCatcher({ port, dir, host = "127.0.0.1" }: { port: numb
             subject: parsed.subject ?? "",
             text: parsed.text ?? "",
             html: typeof parsed.html === "string" ? parsed.html : null,
+            messageId: parsed.messageId ?? null,
+            listUnsubscribe: headerText((parsed.headers.get("list") as { unsubscribe?: unknown } | undefined)?.unsubscribe),
           }),
         )
         .then(
@@ -49,4 +51,12 @@ export function startMailCatcher({ port, dir, host = "127.0.0.1" }: { port: numb
       });
     });
   });
+}
+
+/** mailparser folds List-Unsubscribe into the "list" header as `{ url }`; the catcher keeps the header's text form. */
+function headerText(value: unknown): string | null {
+  if (value == null) return null;
+  if (typeof value === "string") return value;
+  const url = (value as { url?: unknown }).url;
+  return typeof url === "string" ? `<${url}>` : JSON.stringify(value);
 }

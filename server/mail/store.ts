@@ -10,6 +10,9 @@ export type CaughtMessage = {
   subject: string;
   text: string;
   html: string | null;
+  /** The Message-ID header as sent (absent in messages caught before it was kept). */
+  messageId?: string | null;
+  listUnsubscribe?: string | null;
 };
 
 export async function saveCaughtMessage(dir: string, message: CaughtMessage): Promise<void> {

@@ -116,7 +116,7 @@ describe("watchers' mail", () => {
     expect(await delivery.deliverDue()).toEqual({ sent: 1, retrying: 0, failed: 0 });
     expect(smtp.received).toHaveLength(1);
     expect(smtp.received[0].to).toEqual([people.viewer.email]);
-    expect(smtp.received[0].subject).toMatch(/^New certified map: /);
+    expect(smtp.received[0].subject).toMatch(/^Certified: .+ → .+, decimation$/);
     expect(smtp.received[0].text).toContain(result.address);
     expect((await listOutboxMessages({ workspaceId: ws, mapId: result.mapId }))[0].status).toBe("sent");
   });

@@ -1,7 +1,7 @@
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
 
-export type Received = { to: string[]; subject: string; text: string };
+export type Received = { to: string[]; subject: string; text: string; messageId: string | null; listUnsubscribe: string | null };
 
 /**
  * A throw-away SMTP server for the watchers' mail tests: keeps what it receives in memory and
@@ -24,7 +24,15 @@ export async function startTestSmtp(port: number): Promise<{ received: Received[
     onData(stream, session, callback) {
       simpleParser(stream).then(
         (mail) => {
-          received.push({ to: session.envelope.rcptTo.map((r) => r.address), subject: mail.subject ?? "", text: mail.text ?? "" });
+          // mailparser folds the List-* headers (RFC 2369) into one "list" header object.
+          const unsubscribe = (mail.headers.get("list") as { unsubscribe?: { url?: string } } | undefined)?.unsubscribe;
+          received.push({
+            to: session.envelope.rcptTo.map((r) => r.address),
+            subject: mail.subject ?? "",
+            text: mail.text ?? "",
+            messageId: mail.messageId ?? null,
+            listUnsubscribe: unsubscribe?.url ? `<${unsubscribe.url}>` : null,
+          });
           callback();
         },
         (err: Error) => callback(err),

@@ -20,6 +20,14 @@ import { routes as tokens } from "../tokens/schema";
 import { watchRoutes } from "../watches/schema";
 import { routes as workspaceExport } from "../workspace/export/schema";
 import { routes as workspaceImport } from "../workspace/import/schema";
+import { memberRoutes } from "../members/schema";
+import { invitationRoutes } from "../invitations/schema";
+import { workspaceRoutes } from "../workspaces/schema";
+import { watchRuleRoutes } from "../watch-rules/schema";
+import { notificationRoutes } from "../notifications/schema";
+import { outboxRoutes } from "../outbox/schema";
+import { auditRoutes } from "../audit/schema";
+import { annotationRoutes } from "../annotations/schema";
 
 const ALL_ROUTES: RouteConfig[] = [
   ...models,
@@ -41,6 +49,14 @@ const ALL_ROUTES: RouteConfig[] = [
   ...notes,
   ...workspaceExport,
   ...workspaceImport,
+  ...memberRoutes,
+  ...invitationRoutes,
+  ...workspaceRoutes,
+  ...watchRuleRoutes,
+  ...notificationRoutes,
+  ...outboxRoutes,
+  ...auditRoutes,
+  ...annotationRoutes,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to

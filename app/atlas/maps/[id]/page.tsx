@@ -17,6 +17,7 @@ import { guaranteeOf, power } from "@/components/atlas/guarantee";
 import { CommutingPictureView } from "@/components/spacetime/commuting-picture";
 import { pictureInputOf } from "@/components/spacetime/ruleViews";
 import { Panel } from "@/components/ui/panel";
+import { AnnotationsPanel } from "@/components/team/annotations-panel";
 import { getCertificate, getMap, getModel } from "@/db/queries/atlas";
 import { getUserById } from "@/db/queries/users";
 import { env } from "@/env";
@@ -173,6 +174,7 @@ export default async function MapPage({ params }: Props) {
       {source.kind === "markov" && target.kind === "markov" ? (
         <ChainsPanel source={source} target={target} kind={map.kind} steps={map.steps} partition={partition} />
       ) : null}
+      <AnnotationsPanel workspaceId={workspace.id} role={role} subjectType="map" subjectId={map.id} />
 
       <Panel title="Certificate JSON">
         <CopyBlock text={prettyJson(certificate.body)} label="Certificate JSON" maxHeight="28rem" />

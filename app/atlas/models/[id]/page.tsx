@@ -19,6 +19,7 @@ import { listModelMaps, type ModelMapRow } from "@/db/queries/maps";
 import { MAP_KINDS } from "@/db/schema";
 import { modelMapsHref, parseModelMapFilters, type ListSide, type ModelMapFilters } from "@/components/atlas/modelMapFilters";
 import { can } from "@/lib/policy";
+import { ModelAnnotations } from "@/components/team/model-annotations";
 import { getWorkspaceContext } from "@/server/context";
 import { ModelDetailsForm } from "@/components/atlas/model-details-form";
 import { findLumpingAction, updateModelDetailsAction } from "./actions";
@@ -347,6 +348,8 @@ export default async function ModelPage({ params, searchParams }: Props) {
           </details>
         </Panel>
       ) : null}
+
+      <ModelAnnotations workspaceId={workspace.id} modelId={model.id} />
 
       <Panel title="Recorded searches">
         <Suspense fallback={<Skeleton lines={2} label="Loading searches" />}>

@@ -1,0 +1,3 @@
+export { parseArxivId } from "./parseArxivId";
+export { parseDoi } from "./parseDoi";
+export { parseReference, referenceUrl, type Reference } from "./parseReference";
