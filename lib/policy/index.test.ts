@@ -20,6 +20,16 @@ const MAY: Record<string, Role[]> = {
   "map:retract": ["curator", "admin"],
   "job:cancel-any": ["admin"],
   "member:manage": ["admin"],
+  "member:invite": ["admin"],
+  "invitation:revoke": ["admin"],
+  "member:change-role": ["admin"],
+  "member:remove": ["admin"],
+  "workspace:publish": ["admin"],
+  "outbox:manage": ["admin"],
+  "audit:browse": ["admin"],
+  "annotation:note": ["contributor", "curator", "admin"],
+  "annotation:tag": ["contributor", "curator", "admin"],
+  "map:mark-published": ["contributor", "curator", "admin"],
 };
 
 describe("the role policy, pinned action by action", () => {
