@@ -11,7 +11,7 @@ export type EvolutionRow = { cells: number[]; indent: number };
 export function windowEvolution(w: Witness, rule: RuleTable, steps: number): { rows: EvolutionRow[]; centre: { from: number; to: number } } {
   const start = w.cells.join("").split("").map((c) => parseInt(c, 36));
   const rows: EvolutionRow[] = [{ cells: start, indent: 0 }];
-  let row = Uint8Array.from(start);
+  let row: Uint8Array = Uint8Array.from(start);
   for (let s = 1; s <= steps && row.length > 2 * rule.r; s++) {
     row = evolveCells(rule, row, 1);
     rows.push({ cells: Array.from(row), indent: s * rule.r });

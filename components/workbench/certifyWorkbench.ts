@@ -62,9 +62,9 @@ export async function certifyWorkbench(start: Workbench, api: ApiCall, dispatch:
     const next = [...edges.values()].find((e) => e.state !== "certified" && e.state !== "refused" && nodes.get(e.source)?.model);
     if (!next) break;
     const result = await certifyEdge(next, nodes, api, dispatch);
+    if (result === "forbidden") return { ok: false, message: "Your role may not certify maps (contributor or higher).", chainId: null };
     next.state = result;
     if (result === "refused") refused += 1;
-    if (result === "forbidden") return { ok: false, message: "Your role may not certify maps (contributor or higher).", chainId: null };
   }
   const stuck = [...edges.values()].filter((e) => e.state === "proposed");
   for (const e of stuck) dispatch({ type: "edge-result", id: e.id, patch: { problem: { message: "Its source model is not known yet: certify the map into it first." } } });
@@ -132,6 +132,8 @@ async function certifyEdge(
   target.modelId = map.target.id;
   dispatch({ type: "node-result", id: target.id, patch: { model: model.model, modelId: map.target.id, ...(target.name ? {} : { name: map.target.name }) } });
   if (!target.name) target.name = map.target.name;
+  edge.mapId = mapId;
+  edge.certificateAddress = address;
   dispatch({ type: "edge-result", id: edge.id, patch: { state: "certified", mapId, certificateAddress: address, problem: null } });
   return "certified";
 }

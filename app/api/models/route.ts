@@ -18,7 +18,7 @@ export const POST = route(async (request) => {
   const body = await parseBody(request, CreateBody);
   const actor = await resolveActor(request);
   authorize(actor, "model:create");
-  const stored = await ensureModel({ workspaceId: actor.workspace.id, userId: actor.user.id, model: body.model });
+  const stored = await ensureModel({ workspaceId: actor.workspace.id, userId: actor.user.id, model: body.model, naming: { name: body.name, description: body.description } });
   return Response.json(
     { status: stored.status, model: modelJson(stored.model) },
     { status: stored.status === "created" ? 201 : 200 },
