@@ -12,7 +12,7 @@ const SIGNED_IN_LINKS: NavLink[] = [
   { href: "/atlas", label: "Atlas" },
   { href: "/atlas/hierarchy", label: "Hierarchy" },
   { href: "/atlas/ask", label: "Ask" },
-  { href: "/chains/new", label: "New chain" },
+  { href: "/chains", label: "Chains" },
   { href: "/jobs", label: "Jobs" },
   { href: "/settings/tokens", label: "Tokens" },
   { href: "/api-docs", label: "API" },

@@ -2,7 +2,7 @@ import { canonicalModel, modelRuleTable, type Model } from "@/lib/models";
 import { chainPath, type MapSpec, type WbAction, type WbEdge, type WbNode, type Workbench } from "./workbenchState";
 
 /** One JSON call to the app's API: what the page uses (fetch) and what the benchmark uses (fetch with a cookie). */
-export type ApiCall = (method: "GET" | "POST", path: string, body?: unknown) => Promise<{ status: number; body: unknown }>;
+export type ApiCall = (method: "GET" | "POST" | "PATCH" | "DELETE", path: string, body?: unknown) => Promise<{ status: number; body: unknown }>;
 
 export type CertifyOutcome = { ok: boolean; message: string; chainId: string | null };
 
