@@ -139,7 +139,7 @@ export const STATE_CLASS: Record<WbEdge["state"], string> = {
   refused: "text-brick-700",
 };
 
-function ruleOf(model: Model | null): { k: number; r: number; table: number[] } | null {
+export function ruleOf(model: Model | null): { k: number; r: number; table: number[] } | null {
   if (model?.kind === "eca") {
     const t = ecaTable(model.rule);
     return { k: t.k, r: t.r, table: Array.from(t.table) };

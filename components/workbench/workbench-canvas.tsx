@@ -17,20 +17,22 @@ import ReactFlow, {
   type NodeProps,
 } from "reactflow";
 import "reactflow/dist/style.css";
-import { describeCounterexample, asCounterexample } from "@/components/counterexample/describeCounterexample";
-import { modelName } from "./derivedModels";
-import type { JobProgress } from "./map-editor";
+import { CounterexampleView } from "@/components/counterexample/counterexample-view";
+import { asCounterexample } from "@/components/counterexample/describeCounterexample";
+import { modelName, tryCanonical } from "./derivedModels";
+import { ruleOf, type JobProgress } from "./map-editor";
 import type { MapSpec, WbEdge, WbNode, Workbench } from "./workbenchState";
 
 export const NODE_WIDTH = 190;
 export const NODE_HEIGHT = 64;
 
 type NodeData = { node: WbNode; selected: boolean };
-type EdgeData = { edge: WbEdge; job: JobProgress | null };
+type EdgeData = { edge: WbEdge; job: JobProgress | null; rule: { k: number; r: number; table: number[] } | null };
 
 const ModelNode = memo(function ModelNode({ data }: NodeProps<NodeData>) {
   const { node, selected } = data;
   const summary = node.model ? modelName(node.model) : "determined by the map into it";
+  const title = node.name || (node.model ? summary : "model to be derived");
   return (
     <div
       className={`rounded-md border-2 bg-paper-raised px-2 py-1.5 text-xs shadow-sm ${selected ? "border-tide-600 ring-2 ring-tide-300" : node.model ? "border-line-strong" : "border-dashed border-line-strong"}`}
@@ -38,7 +40,7 @@ const ModelNode = memo(function ModelNode({ data }: NodeProps<NodeData>) {
       data-node-name={node.name}
     >
       <Handle type="target" position={Position.Top} className="!h-2.5 !w-2.5 !bg-ink-faint" />
-      <div className="truncate font-semibold text-ink">{node.name || summary}</div>
+      <div className="truncate font-semibold text-ink">{title}</div>
       <div className="truncate font-mono text-[10px] text-ink-faint">{summary}</div>
       {node.note ? <div className="mt-0.5 text-[10px] leading-tight text-saffron-700">{node.note}</div> : null}
       <Handle type="source" position={Position.Bottom} className="!h-2.5 !w-2.5 !bg-tide-600" />
@@ -80,8 +82,8 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
       <BaseEdge id={id} path={path} markerEnd={markerEnd} style={{ stroke: style.stroke, strokeWidth: selected ? style.width + 1 : style.width, strokeDasharray: style.dash }} />
       <EdgeLabelRenderer>
         <div
-          className="nodrag nopan pointer-events-auto absolute max-w-[240px] space-y-0.5 rounded border border-line bg-paper-raised/95 px-1.5 py-1 text-[10px] shadow-sm"
-          style={{ transform: `translate(-50%, -50%) translate(${labelX}px, ${labelY}px)` }}
+          className="nodrag nopan pointer-events-auto absolute w-max max-w-[250px] space-y-0.5 rounded border border-line bg-paper-raised/95 px-1.5 py-1 text-[10px] shadow-sm"
+          style={{ transform: `translate(12px, -50%) translate(${labelX}px, ${labelY}px)` }}
           data-edge-label={edge.state}
         >
           <div className="font-mono text-ink-soft">{specText(edge.spec)}</div>
@@ -99,9 +101,13 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
               certificate
             </a>
           ) : null}
-          {edge.state === "refused" ? (
+          {edge.state === "refused" && counterexample ? (
+            <div data-edge-problem>
+              <CounterexampleView counterexample={counterexample} rule={data!.rule} steps={steps} compact />
+            </div>
+          ) : edge.state === "refused" ? (
             <p className="text-brick-700" data-edge-problem>
-              {counterexample ? describeCounterexample(counterexample, { steps }) : edge.problem?.message}
+              {edge.problem?.message}
             </p>
           ) : null}
         </div>
@@ -151,10 +157,10 @@ export function WorkbenchCanvas({
         type: "map",
         selected: selected?.type === "edge" && selected.id === e.id,
         markerEnd: { type: MarkerType.ArrowClosed, color: STYLE[e.state].stroke },
-        data: { edge: e, job: jobs[e.id] ?? null },
+        data: { edge: e, job: jobs[e.id] ?? null, rule: e.state === "refused" ? ruleOf(tryCanonical(workbench.nodes.find((n) => n.id === e.source)?.model ?? null)) : null },
         ariaLabel: `Map ${specText(e.spec)}, ${STYLE[e.state].word}`,
       })),
-    [workbench.edges, selected, jobs],
+    [workbench.edges, workbench.nodes, selected, jobs],
   );
   return (
     <ReactFlow

@@ -85,9 +85,12 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const patchDraft = useCallback(
     async (patch: { name?: string; shared?: boolean }) => {
       if (!draft) return;
+      setDraft({ ...draft, ...patch });
       const res = await browserApi("PATCH", `/api/drafts/${draft.id}`, patch);
-      if (res.status < 300) setDraft({ ...draft, ...patch });
-      else setNotice((res.body as { error?: { message?: string } })?.error?.message ?? "The draft was not changed.");
+      if (res.status >= 300) {
+        setDraft(draft);
+        setNotice((res.body as { error?: { message?: string } })?.error?.message ?? "The draft was not changed.");
+      }
     },
     [draft],
   );
@@ -188,6 +191,14 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       return next;
     });
   }, []);
+
+  // A node added or removed: bring the whole canvas into view once React Flow has measured it.
+  const nodeCount = w.nodes.length;
+  useEffect(() => {
+    if (nodeCount === 0) return;
+    const timer = setTimeout(() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 150 }), 80);
+    return () => clearTimeout(timer);
+  }, [nodeCount, flow]);
 
   const path = useMemo(() => chainPath(w), [w]);
   const selectedNode = selected?.type === "node" ? w.nodes.find((n) => n.id === selected.id) : undefined;
@@ -335,7 +346,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
                 return (
                   <li key={e.id}>
                     <button type="button" onClick={() => setSelected({ type: "edge", id: e.id })} className="text-left hover:underline" aria-current={selected?.id === e.id ? "true" : undefined}>
-                      {s?.name || "?"} → {t?.name || "?"}: {specText(e.spec)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
+                      {s?.name || modelName(s?.model ?? null)} → {t?.name || modelName(t?.model ?? null)}: {specText(e.spec)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
                     </button>
                   </li>
                 );
