@@ -1,6 +1,6 @@
 import "server-only";
 import { and, asc, desc, eq, inArray, or, sql } from "drizzle-orm";
-import { chainLinks, chains, maps, models } from "@/db/schema";
+import { certificates, chainLinks, chains, maps, models } from "@/db/schema";
 import { getDatabase, withDb, type Executor } from "./connection";
 
 export type ChainListItem = {
@@ -99,5 +99,31 @@ export async function listChainModels({ db = getDatabase(), workspaceId }: { db?
       .where(eq(chains.workspaceId, workspaceId))
       .all();
     return rows.sort((a, b) => a.name.localeCompare(b.name, "en", { numeric: true }));
+  });
+}
+
+export type CompositeEdge = ChainListItem & { compositeKind: string; compositeBlock: number | null; compositeAddress: string };
+
+/**
+ * Certified chains whose composite starts or ends at a model: edges of the atlas of their own,
+ * marked as composites and linked to their chain (the composite certificate gives kind and block).
+ */
+export async function listCompositeEdges({ db = getDatabase(), workspaceId, modelId }: { db?: Executor; workspaceId: string; modelId: string }): Promise<CompositeEdge[]> {
+  const { items } = await searchChains({ db, workspaceId, modelId, pageSize: 100 });
+  const ends = items.filter((c) => c.source.id === modelId || c.target.id === modelId);
+  if (ends.length === 0) return [];
+  return withDb("reading composite certificates", async () => {
+    const rows = await db
+      .select({ id: chains.id, address: certificates.address, kind: certificates.kind, body: certificates.body })
+      .from(chains)
+      .innerJoin(certificates, eq(certificates.address, chains.compositeCertificateAddress))
+      .where(inArray(chains.id, ends.map((c) => c.id)))
+      .all();
+    const byChain = new Map(rows.map((r) => [r.id, r]));
+    return ends.map((c) => {
+      const row = byChain.get(c.id);
+      const block = row ? (JSON.parse(row.body) as { map?: { block?: unknown } }).map?.block : null;
+      return { ...c, compositeKind: row?.kind ?? "composite", compositeBlock: typeof block === "number" ? block : null, compositeAddress: row?.address ?? "" };
+    });
   });
 }

@@ -2,7 +2,7 @@ import { mkdirSync } from "node:fs";
 import { desc, eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { certificates, chains, drafts, maps } from "@/db/schema";
+import { certificates, chains, drafts, maps, models } from "@/db/schema";
 import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
 
 let server: TestServer;
@@ -94,6 +94,12 @@ describe("the workbench", () => {
     await page.click("[data-chain-link]");
     await page.waitForURL(/\/chains\/[0-9a-f-]{36}$/);
     await expect(page.getByText('"block": 4', { exact: false }).count()).resolves.toBeGreaterThan(0);
+    // The composite is an edge of the atlas on the source model's page, marked composite, block 4.
+    const [eca105] = await server.db.select().from(models).where(eq(models.name, "ECA 105"));
+    await page.goto(`${server.url}/atlas/models/${eca105.id}`);
+    const compositeEdge = page.locator("[data-composite-edges] li");
+    await expect(compositeEdge.textContent()).resolves.toContain("compositeECA 105 → ECA 150projection N=4 · 2 links");
+    await shot(page, "1-model-page");
     await page.goto(`${server.url}/chains?q=parity`);
     await expect(page.getByRole("link", { name: "Rule 105 to 150 by parity, twice" }).count()).resolves.toBe(1);
     await shot(page, "1-chains-list");

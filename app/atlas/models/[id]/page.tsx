@@ -10,6 +10,7 @@ import { MapTable, type MapRow } from "@/components/atlas/map-table";
 import { parseTags } from "@/components/atlas/model-table";
 import { PageHeader } from "@/components/atlas/page-header";
 import { Skeleton } from "@/components/atlas/skeleton";
+import { CompositeEdges } from "@/app/chains/composite-edges";
 import { Panel } from "@/components/ui/panel";
 import { WatchButton } from "@/components/watch-button";
 import { getModel, listMapsFrom, listMapsTo, listSearchRecords, type MapView } from "@/db/queries/atlas";
@@ -171,6 +172,10 @@ export default async function ModelPage({ params }: Props) {
 
       <Suspense fallback={<Skeleton lines={6} label="Loading maps" />}>
         <Edges workspaceId={workspace.id} modelId={model.id} />
+      </Suspense>
+
+      <Suspense fallback={null}>
+        <CompositeEdges workspaceId={workspace.id} modelId={model.id} />
       </Suspense>
 
       <Panel title="Recorded searches">
