@@ -162,6 +162,16 @@ describe("the workbench", () => {
     expect(body.map).toMatchObject({ kind: "lumping", partition: [0, 1, 1, 2], steps: 2 });
     // Q = [[1/2,1/2,0],[1/4,1/2,1/4],[0,1/2,1/2]] squared by hand.
     expect(body.target.matrix).toEqual([["3/8", "1/2", "1/8"], ["1/4", "1/2", "1/4"], ["1/8", "1/2", "3/8"]]);
+
+    // The lumped chain Q and its decimation Q² are both named "Markov chain (3 states)": Ask says so and lets the person choose.
+    await page.goto(`${server.url}/atlas/ask?from=Four-state%20test%20chain&to=Markov%20chain%20(3%20states)`);
+    const choices = page.getByRole("list", { name: "Models matching Markov chain (3 states)" }).getByRole("link");
+    await expect(choices.count()).resolves.toBe(2);
+    await expect(page.locator("[data-answer]").count()).resolves.toBe(0);
+    await choices.first().click();
+    await page.locator("[data-answer]").waitFor();
+    await expect(page.locator("[data-answer]").getAttribute("data-answer")).resolves.toBe("yes");
+    await shot(page, "3-ask-choice");
     await page.context().close();
   }, 240_000);
 
