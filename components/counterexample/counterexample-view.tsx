@@ -3,6 +3,7 @@ import { asCounterexample, describeCounterexample, type KnownCounterexample, typ
 import { windowEvolution } from "./spaceTimeRows";
 
 const CELL = 14;
+const COMPACT_CELL = 9;
 
 type Props = {
   counterexample: unknown;
@@ -38,7 +39,7 @@ function Drawing({ c, rule, steps, labels, compact }: { c: KnownCounterexample }
   switch (c.kind) {
     case "not-a-function":
       return (
-        <div className="flex flex-wrap gap-4" aria-hidden>
+        <div className={`flex gap-4 ${compact ? "" : "flex-wrap"}`} aria-hidden>
           <WindowDrawing w={c.first} other={c.second} rule={table} steps={steps} title="first window" compact={compact} />
           <WindowDrawing w={c.second} other={c.first} rule={table} steps={steps} title="second window" compact={compact} />
         </div>
@@ -82,7 +83,8 @@ function Drawing({ c, rule, steps, labels, compact }: { c: KnownCounterexample }
   }
 }
 
-function Cells({ cells, indent = 0, mark, differ }: { cells: number[]; indent?: number; mark?: { from: number; to: number }; differ?: Set<number> }) {
+function Cells({ cells, indent = 0, mark, differ, size = CELL }: { cells: number[]; indent?: number; mark?: { from: number; to: number }; differ?: Set<number>; size?: number }) {
+  const CELL = size;
   return (
     <svg width={(indent + cells.length) * CELL} height={CELL} className="block">
       {cells.map((v, i) => {
@@ -122,6 +124,7 @@ function WindowDrawing({
   claimed?: number;
 }) {
   const N = w.imageCells.length;
+  const CELL = compact ? COMPACT_CELL : 14;
   const fine = w.cells.join("").split("").map((ch) => parseInt(ch, 36));
   const otherFine = other?.cells.join("").split("").map((ch) => parseInt(ch, 36));
   const differ = new Set(otherFine ? fine.flatMap((v, i) => (v !== otherFine[i] ? [i] : [])) : []);
@@ -137,13 +140,14 @@ function WindowDrawing({
             indent={row.indent}
             differ={i === 0 ? differ : undefined}
             mark={i === evolution.rows.length - 1 ? evolution.centre : undefined}
+            size={CELL}
           />
         ))
       ) : (
         <>
-          <Cells cells={fine} differ={differ} />
+          <Cells cells={fine} differ={differ} size={CELL} />
           {compact ? null : <p className="text-[11px] text-ink-faint">centre block after the steps:</p>}
-          <Cells cells={w.imageCells.split("").map((ch) => parseInt(ch, 36))} indent={((w.window.length - 1) / 2) * N} mark={{ from: 0, to: N }} />
+          <Cells cells={w.imageCells.split("").map((ch) => parseInt(ch, 36))} indent={((w.window.length - 1) / 2) * N} mark={{ from: 0, to: N }} size={CELL} />
         </>
       )}
       <p className="text-[11px] text-ink-faint">projected block by block:</p>

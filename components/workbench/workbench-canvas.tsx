@@ -82,8 +82,8 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
       <BaseEdge id={id} path={path} markerEnd={markerEnd} style={{ stroke: style.stroke, strokeWidth: selected ? style.width + 1 : style.width, strokeDasharray: style.dash }} />
       <EdgeLabelRenderer>
         <div
-          className="nodrag nopan pointer-events-auto absolute w-max max-w-[250px] space-y-0.5 rounded border border-line bg-paper-raised/95 px-1.5 py-1 text-[10px] shadow-sm"
-          style={{ transform: `translate(12px, -50%) translate(${labelX}px, ${labelY}px)` }}
+          className="nodrag nopan pointer-events-auto absolute w-max max-w-[360px] space-y-0.5 rounded border border-line bg-paper-raised/95 px-1.5 py-1 text-[10px] shadow-sm"
+          style={{ transform: `translate(${NODE_WIDTH / 2 + 14}px, -50%) translate(${labelX}px, ${labelY}px)` }}
           data-edge-label={edge.state}
         >
           <div className="font-mono text-ink-soft">{specText(edge.spec)}</div>

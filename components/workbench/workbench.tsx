@@ -223,6 +223,8 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
           {readOnly ? `Read-only${draft && !draft.mine ? ` · shared by ${draft.ownerName}` : ""}` : { saved: draft ? "Saved" : "Not saved yet", saving: "Saving…", unsaved: "Unsaved changes", error: "Not saved — retrying on the next edit" }[saveState]}
         </span>
         <div className="ml-auto flex flex-wrap gap-1">
+          {readOnly ? null : (
+            <>
           <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} disabled={readOnly || history.past.length === 0} onClick={() => dispatch({ type: "undo" })}>
             Undo
           </button>
@@ -232,6 +234,8 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
           <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} disabled={readOnly || w.nodes.length === 0} onClick={relayout}>
             Re-layout
           </button>
+            </>
+          )}
           <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} onClick={() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 200 })}>
             Fit to view
           </button>

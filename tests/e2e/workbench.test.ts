@@ -136,7 +136,7 @@ describe("the workbench", () => {
     // An invented chain: B and C both move to A with 1/4, to {B, C} with 1/2 and to D with 1/4.
     const csv = "0.5,0.25,0.25,0\n0.25,0.5,0,0.25\n0.25,0.125,0.375,0.25\n0,0.5,0,0.5\n";
     await page.getByLabel("…or upload a CSV or Matrix Market (.mtx) file").setInputFiles({ name: "chain.csv", mimeType: "text/csv", buffer: Buffer.from(csv) });
-    await expect(page.getByLabel("Transition matrix (one row per line)").inputValue()).resolves.toBe(csv);
+    await expect.poll(() => page.getByLabel("Transition matrix (one row per line)").inputValue()).toBe(csv);
     await page.getByLabel("State labels (comma-separated; blank for s0, s1, …)").fill("A, B, C, D");
     await page.getByLabel("Name (optional)").fill("Four-state test chain");
     await page.getByRole("button", { name: "Add to canvas" }).click();
