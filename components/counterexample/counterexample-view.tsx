@@ -25,9 +25,9 @@ export function CounterexampleView({ counterexample, rule, steps, labels, compac
   if (!c) return null;
   const sentence = describeCounterexample(c, { steps, labels });
   return (
-    <figure className="space-y-2 rounded-md border border-brick-600/40 bg-brick-50 p-2" data-counterexample={c.kind}>
+    <figure className={`space-y-2 rounded-md border border-brick-600/40 bg-brick-50 ${compact ? "p-1" : "p-2"}`} data-counterexample={c.kind}>
       <Drawing c={c} rule={rule} steps={steps} labels={labels} compact={compact} />
-      <figcaption className="text-xs text-brick-700" data-counterexample-text>
+      <figcaption className={`${compact ? "text-[10px] leading-snug" : "text-xs"} text-brick-700`} data-counterexample-text>
         {sentence}
       </figcaption>
     </figure>
@@ -162,7 +162,8 @@ function WindowDrawing({
         ))}
       </svg>
       <p className="font-mono text-xs">
-        coarse value <span className="rounded bg-brick-100 px-1 font-semibold text-brick-700 ring-2 ring-brick-600">{w.coarse}</span>
+        {compact ? "" : "coarse value "}
+        <span className="rounded bg-brick-100 px-1 font-semibold text-brick-700 ring-2 ring-brick-600">{w.coarse}</span>
         {claimed !== undefined ? (
           <>
             {" "}

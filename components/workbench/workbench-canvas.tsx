@@ -82,7 +82,7 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
       <BaseEdge id={id} path={path} markerEnd={markerEnd} style={{ stroke: style.stroke, strokeWidth: selected ? style.width + 1 : style.width, strokeDasharray: style.dash }} />
       <EdgeLabelRenderer>
         <div
-          className="nodrag nopan pointer-events-auto absolute w-max max-w-[360px] space-y-0.5 rounded border border-line bg-paper-raised/95 px-1.5 py-1 text-[10px] shadow-sm"
+          className="nodrag nopan pointer-events-auto absolute w-max max-w-[250px] space-y-0.5 rounded border border-line bg-paper-raised/95 px-1.5 py-1 text-[10px] shadow-sm"
           style={{ transform: `translate(${NODE_WIDTH / 2 + 14}px, -50%) translate(${labelX}px, ${labelY}px)` }}
           data-edge-label={edge.state}
         >
@@ -178,7 +178,7 @@ export function WorkbenchCanvas({
       onConnect={(c: Connection) => (c.source && c.target ? onConnect(c.source, c.target) : undefined)}
       onNodeDragStop={(_, n) => onMoved(n.id, n.position.x, n.position.y)}
       fitView
-      fitViewOptions={{ padding: 0.2, maxZoom: 1.2 }}
+      fitViewOptions={{ padding: 0.3, maxZoom: 1.1 }}
       minZoom={0.1}
     >
       <Background gap={20} color="#dcd8cc" />

@@ -196,7 +196,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const nodeCount = w.nodes.length;
   useEffect(() => {
     if (nodeCount === 0) return;
-    const timer = setTimeout(() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 150 }), 80);
+    const timer = setTimeout(() => flow.fitView({ padding: 0.3, maxZoom: 1.1, duration: 150 }), 80);
     return () => clearTimeout(timer);
   }, [nodeCount, flow]);
 
