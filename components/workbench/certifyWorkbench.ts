@@ -4,6 +4,9 @@ import { chainPath, type MapSpec, type WbAction, type WbEdge, type WbNode, type 
 /** One JSON call to the app's API: what the page uses (fetch) and what the benchmark uses (fetch with a cookie). */
 export type ApiCall = (method: "GET" | "POST" | "PATCH" | "DELETE", path: string, body?: unknown) => Promise<{ status: number; body: unknown }>;
 
+/** Follows a job: waits `pollMs` between looks, and reports progress (0–1) with the job's current item. */
+export type JobFollower = { pollMs: number; wait: (ms: number) => Promise<void>; onProgress: (progress: number, item: string | null) => void };
+
 export type CertifyOutcome = { ok: boolean; message: string; chainId: string | null };
 
 type ErrorBody = { error?: { message?: string; field?: string; details?: { counterexample?: unknown; link?: number | null } } };
@@ -45,7 +48,12 @@ function errorOf(body: unknown): NonNullable<ErrorBody["error"]> {
  * fills in the models the maps determine, and when the maps form one path of two or more links stores
  * the chain, which the server composes and verifies again. Each answer is dispatched as it comes.
  */
-export async function certifyWorkbench(start: Workbench, api: ApiCall, dispatch: (a: WbAction) => void): Promise<CertifyOutcome> {
+export async function certifyWorkbench(
+  start: Workbench,
+  api: ApiCall,
+  dispatch: (a: WbAction) => void,
+  options: { jobs?: JobFollower } = {},
+): Promise<CertifyOutcome> {
   const nodes = new Map(start.nodes.map((n) => [n.id, { ...n }]));
   for (const node of nodes.values()) {
     if (!node.model || node.modelId) continue;
@@ -79,6 +87,7 @@ export async function certifyWorkbench(start: Workbench, api: ApiCall, dispatch:
   const mapIds = path.edges.map((e) => edges.get(e.id)!.mapId!);
   const name = start.chain.name.trim() || `${nodes.get(path.edges[0].source)?.name || "chain"} in ${mapIds.length} steps`;
   const res = await api("POST", "/api/chains", { name, mapIds });
+  if (res.status === 413 && options.jobs) return composeAsJob(name, path.edges.map((e) => edges.get(e.id)!), api, dispatch, options.jobs);
   if (res.status >= 300) {
     const err = errorOf(res.body);
     return { ok: false, message: `The chain was not stored: ${err.message ?? res.status}`, chainId: null };
@@ -136,4 +145,34 @@ async function certifyEdge(
   edge.certificateAddress = address;
   dispatch({ type: "edge-result", id: edge.id, patch: { state: "certified", mapId, certificateAddress: address, problem: null } });
   return "certified";
+}
+
+type JobBody = { id: string; status: string; progress: number; currentItem: string | null; result: unknown; error: string | null };
+
+/**
+ * A chain whose composite is too large to check within a request (413) is checked by the verify-chain
+ * job, whose bounds are larger; it stores the chain when the composite verifies. Progress is reported
+ * as the job reports it.
+ */
+async function composeAsJob(name: string, links: WbEdge[], api: ApiCall, dispatch: (a: WbAction) => void, jobs: JobFollower): Promise<CertifyOutcome> {
+  const certificates: unknown[] = [];
+  for (const link of links) {
+    const res = await api("GET", `/api/maps/${link.mapId}`);
+    const address = (res.body as { certificateAddress: string }).certificateAddress;
+    const cert = await api("GET", `/api/certificates/${encodeURIComponent(address)}`);
+    certificates.push((cert.body as { certificate: unknown }).certificate);
+  }
+  const started = await api("POST", "/api/jobs", { kind: "verify-chain", params: { name, certificates, save: true } });
+  if (started.status >= 300) return { ok: false, message: `The chain check could not start: ${errorOf(started.body).message ?? started.status}`, chainId: null };
+  let job = started.body as JobBody;
+  while (job.status === "queued" || job.status === "running") {
+    jobs.onProgress(job.progress, job.currentItem);
+    await jobs.wait(jobs.pollMs);
+    job = (await api("GET", `/api/jobs/${job.id}`)).body as JobBody;
+  }
+  jobs.onProgress(1, null);
+  const result = job.result as { chainId?: string; composite?: string; verification?: string } | null;
+  if (job.status !== "succeeded" || !result?.chainId) return { ok: false, message: `The chain was not stored: ${job.error ?? job.status}`, chainId: null };
+  dispatch({ type: "chain-result", id: result.chainId, address: result.composite ?? "" });
+  return { ok: true, message: `Every map and the chain of ${links.length} are certified (${result.verification}, checked as a job).`, chainId: result.chainId };
 }

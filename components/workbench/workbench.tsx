@@ -163,7 +163,15 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     setCertifying(true);
     setOutcome(null);
     try {
-      setOutcome(await certifyWorkbench(w, browserApi, dispatch));
+      const chainEdges = path.ok ? path.edges.map((e) => e.id) : [];
+      const jobs = {
+        pollMs: 700,
+        wait: (ms: number) => new Promise<void>((r) => setTimeout(r, ms)),
+        onProgress: (progress: number, item: string | null) => {
+          for (const id of chainEdges) onJob(id, progress >= 1 ? null : { progress, label: `composite check (job): ${Math.round(progress * 100)}%${item ? ` · ${item}` : ""}` });
+        },
+      };
+      setOutcome(await certifyWorkbench(w, browserApi, dispatch, { jobs }));
     } finally {
       setCertifying(false);
     }
