@@ -43,3 +43,16 @@ function derivedNote(base: ModelInput, kind: DeriveKind, n: number): string {
   const states = k ** n;
   return `The block-${n} supercell CA has ${states} block states (alphabet ${k}^${n}) and radius ${Math.ceil((r * n) / n)}, one supercell step being ${n} steps.`;
 }
+
+/**
+ * What a node is called on the canvas and in lists: its name, else its model's short name, else
+ * "model to be derived n" numbered in the order such nodes were drawn, so two of them never read alike.
+ */
+export function nodeLabel(nodes: { id: string; name: string; model: ModelInput | null }[], id: string): string {
+  const node = nodes.find((n) => n.id === id);
+  if (!node) return "?";
+  if (node.name) return node.name;
+  if (node.model) return modelName(node.model);
+  const pending = nodes.filter((n) => !n.name && !n.model);
+  return `model to be derived ${pending.findIndex((n) => n.id === id) + 1}`;
+}

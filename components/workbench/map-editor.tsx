@@ -6,7 +6,7 @@ import { CounterexampleView } from "@/components/counterexample/counterexample-v
 import { ecaTable } from "@/lib/ca";
 import type { Model } from "@/lib/models";
 import { browserApi, runJob, type JobSnapshot } from "./api";
-import { tryCanonical } from "./derivedModels";
+import { nodeLabel, tryCanonical } from "./derivedModels";
 import { Field, inputClass } from "./model-forms";
 import { nodeShape, type NodeShape } from "./nodeShape";
 import { blockCells, presetProjection, PRESETS, projectionIssue, type PresetName } from "./projectionPresets";
@@ -61,7 +61,6 @@ export function MapEditor({
 }) {
   const id = useId();
   const source = workbench.nodes.find((n) => n.id === edge.source);
-  const target = workbench.nodes.find((n) => n.id === edge.target);
   const shape = nodeShape(workbench, edge.source);
   const kinds: MapSpec["kind"][] = shape?.kind === "markov" ? ["lumping", "decimation"] : shape?.kind === "ca" ? ["projection", "blocking", "iterate"] : [];
   const set = (spec: MapSpec) => dispatch({ type: "set-spec", id: edge.id, spec });
@@ -70,7 +69,7 @@ export function MapEditor({
   return (
     <section aria-labelledby={`${id}-h`} className="space-y-3">
       <h3 id={`${id}-h`} className="text-sm font-semibold text-ink">
-        Map {source?.name || "?"} → {target?.name || "model to be derived"}
+        Map {nodeLabel(workbench.nodes, edge.source)} → {nodeLabel(workbench.nodes, edge.target)}
       </h3>
       <p className="text-xs" data-edge-state={edge.state}>
         State: <strong className={STATE_CLASS[edge.state]}>{STATE_TEXT[edge.state]}</strong>

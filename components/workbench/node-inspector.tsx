@@ -2,7 +2,7 @@
 
 import { useId, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
-import { derivedModel, modelName, tryCanonical } from "./derivedModels";
+import { derivedModel, modelName, nodeLabel, tryCanonical } from "./derivedModels";
 import { defaultSpec } from "./map-editor";
 import { Field, inputClass } from "./model-forms";
 import { nodeShape } from "./nodeShape";
@@ -63,7 +63,7 @@ export function NodeInspector({
   return (
     <section aria-labelledby={`${id}-h`} className="space-y-3">
       <h3 id={`${id}-h`} className="text-sm font-semibold text-ink">
-        {node.name || "Model to be derived"}
+        {nodeLabel(workbench.nodes, node.id)}
       </h3>
       <p className="font-mono text-xs text-ink-soft">{canonical ? modelName(canonical) : "Its model is determined by the map into it, once certified."}</p>
       {node.note ? <p className="rounded bg-saffron-50 px-2 py-1 text-xs text-saffron-700">{node.note}</p> : null}
@@ -104,7 +104,7 @@ export function NodeInspector({
                 <option value="">…or to a node on the canvas</option>
                 {others.map((o) => (
                   <option key={o.id} value={o.id}>
-                    {o.name || modelName(o.model)}
+                    {nodeLabel(workbench.nodes, o.id)}
                   </option>
                 ))}
               </select>

@@ -19,20 +19,19 @@ import ReactFlow, {
 import "reactflow/dist/style.css";
 import { CounterexampleView } from "@/components/counterexample/counterexample-view";
 import { asCounterexample } from "@/components/counterexample/describeCounterexample";
-import { modelName, tryCanonical } from "./derivedModels";
+import { modelName, nodeLabel, tryCanonical } from "./derivedModels";
 import { ruleOf, type JobProgress } from "./map-editor";
 import type { MapSpec, WbEdge, WbNode, Workbench } from "./workbenchState";
 
 export const NODE_WIDTH = 190;
 export const NODE_HEIGHT = 64;
 
-type NodeData = { node: WbNode; selected: boolean };
+type NodeData = { node: WbNode; selected: boolean; label: string };
 type EdgeData = { edge: WbEdge; job: JobProgress | null; rule: { k: number; r: number; table: number[] } | null };
 
 const ModelNode = memo(function ModelNode({ data }: NodeProps<NodeData>) {
-  const { node, selected } = data;
+  const { node, selected, label: title } = data;
   const summary = node.model ? modelName(node.model) : "determined by the map into it";
-  const title = node.name || (node.model ? summary : "model to be derived");
   return (
     <div
       className={`rounded-md border-2 bg-paper-raised px-2 py-1.5 text-xs shadow-sm ${selected ? "border-tide-600 ring-2 ring-tide-300" : node.model ? "border-line-strong" : "border-dashed border-line-strong"}`}
@@ -143,8 +142,8 @@ export function WorkbenchCanvas({
         id: n.id,
         type: "model",
         position: { x: n.x, y: n.y },
-        data: { node: n, selected: selected?.type === "node" && selected.id === n.id },
-        ariaLabel: `Model ${n.name || modelName(n.model)}`,
+        data: { node: n, selected: selected?.type === "node" && selected.id === n.id, label: nodeLabel(workbench.nodes, n.id) },
+        ariaLabel: `Model ${nodeLabel(workbench.nodes, n.id)}`,
       })),
     [workbench.nodes, selected],
   );

@@ -6,7 +6,7 @@ import { buttonClass } from "@/components/ui/button";
 import type { Model } from "@/lib/models";
 import { browserApi, newId } from "./api";
 import { certifyWorkbench } from "./certifyWorkbench";
-import { modelName } from "./derivedModels";
+import { nodeLabel } from "./derivedModels";
 import { layoutWorkbench, placeNew } from "./layoutWorkbench";
 import { MapEditor, STATE_CLASS, STATE_TEXT, type JobProgress } from "./map-editor";
 import { MapSearch, type AtlasMap } from "./map-search";
@@ -348,17 +348,15 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
               {w.nodes.map((n) => (
                 <li key={n.id}>
                   <button type="button" onClick={() => setSelected({ type: "node", id: n.id })} className="text-left text-tide-800 hover:underline" aria-current={selected?.id === n.id ? "true" : undefined}>
-                    {n.name || modelName(n.model)}
+                    {nodeLabel(w.nodes, n.id)}
                   </button>
                 </li>
               ))}
               {w.edges.map((e) => {
-                const s = w.nodes.find((n) => n.id === e.source);
-                const t = w.nodes.find((n) => n.id === e.target);
                 return (
                   <li key={e.id}>
                     <button type="button" onClick={() => setSelected({ type: "edge", id: e.id })} className="text-left hover:underline" aria-current={selected?.id === e.id ? "true" : undefined}>
-                      {s?.name || modelName(s?.model ?? null)} → {t?.name || modelName(t?.model ?? null)}: {specText(e.spec)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
+                      {nodeLabel(w.nodes, e.source)} → {nodeLabel(w.nodes, e.target)}: {specText(e.spec)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
                     </button>
                   </li>
                 );

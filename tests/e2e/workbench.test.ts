@@ -71,7 +71,7 @@ describe("the workbench", () => {
     await page.getByRole("button", { name: "Parity" }).click();
     await expect(page.getByRole("button", { name: "Block 01: coarse symbol 1" }).count()).resolves.toBe(1);
     await expect(page.getByRole("button", { name: "Block 11: coarse symbol 0" }).count()).resolves.toBe(1);
-    await selectInList(page, "model to be derived");
+    await selectInList(page, "model to be derived 1");
     await mapToNewNode(page, "Projection");
     await page.getByRole("button", { name: "Parity" }).click();
     await page.fill("#chain-name", "Rule 105 to 150 by parity, twice");
