@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { derivedModel } from "./derivedModels";
+import { derivedModel, nodeLabel } from "./derivedModels";
 import { presetProjection, projectionIssue } from "./projectionPresets";
 import { chainPath, edgeRefusal, emptyWorkbench, initialHistory, workbenchReducer, type WbAction, type WbEdge, type WbNode } from "./workbenchState";
 
@@ -117,5 +117,12 @@ describe("derived models", () => {
     const d = derivedModel({ kind: "eca", rule: 90 }, "iterate", 2);
     expect(d.note).toBe("The 2-step iterate of an ECA is a binary radius-2 CA, no longer an ECA.");
     expect(d.name).toBe("rule 90, 2-step iterate");
+  });
+});
+
+describe("nodeLabel", () => {
+  it("names a node by its name, else its model, else numbers the nodes still to be derived", () => {
+    const nodes = [node("a", 105), { ...node("b"), name: "" }, { ...node("c"), name: "" }, { ...node("d", 90), name: "" }];
+    expect(nodes.map((n) => nodeLabel(nodes, n.id))).toEqual(["a", "model to be derived 1", "model to be derived 2", "ECA 90"]);
   });
 });
