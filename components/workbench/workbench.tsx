@@ -171,7 +171,16 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
           for (const id of chainEdges) onJob(id, progress >= 1 ? null : { progress, label: `composite check (job): ${Math.round(progress * 100)}%${item ? ` · ${item}` : ""}` });
         },
       };
-      setOutcome(await certifyWorkbench(w, browserApi, dispatch, { jobs }));
+      const result = await certifyWorkbench(w, browserApi, dispatch, { jobs });
+      setOutcome(result);
+      // A refused map's counterexample is drawn to the right of its edge: widen the view to show it.
+      if (!result.ok && w.nodes.length > 0) {
+        const left = Math.min(...w.nodes.map((n) => n.x));
+        const top = Math.min(...w.nodes.map((n) => n.y));
+        const right = Math.max(...w.nodes.map((n) => n.x)) + NODE_WIDTH + 280;
+        const bottom = Math.max(...w.nodes.map((n) => n.y)) + NODE_HEIGHT;
+        setTimeout(() => flow.fitBounds({ x: left, y: top, width: right - left, height: bottom - top }, { padding: 0.15, duration: 150 }), 100);
+      }
     } finally {
       setCertifying(false);
     }
