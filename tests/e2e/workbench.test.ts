@@ -246,6 +246,12 @@ describe("the workbench", () => {
     await addEca(page, 90);
     await shot(page, "5-narrow");
     await expect(page.locator('[data-node-name="ECA 90"]').count()).resolves.toBe(1);
+    await page.goto(`${server.url}/chains`);
+    await expect(page.getByRole("link", { name: "Open the workbench" }).isVisible()).resolves.toBe(true);
+    await shot(page, "5-narrow-chains");
+    await page.goto(`${server.url}/jobs`);
+    await expect(page.getByRole("button", { name: "Start job" }).isVisible()).resolves.toBe(true);
+    await shot(page, "5-narrow-jobs");
     await page.context().close();
   }, 120_000);
 });
