@@ -88,8 +88,8 @@ export default async function ChainsPage({ searchParams }: Props) {
                   <th className="py-1 pr-3 font-normal">Name</th>
                   <th className="py-1 pr-3 font-normal">From → to</th>
                   <th className="py-1 pr-3 font-normal">Links</th>
-                  <th className="py-1 pr-3 font-normal">Verification</th>
-                  <th className="py-1 font-normal">Stored</th>
+                  <th className="hidden py-1 pr-3 font-normal sm:table-cell">Verification</th>
+                  <th className="hidden py-1 font-normal sm:table-cell">Stored</th>
                 </tr>
               </thead>
               <tbody>
@@ -104,8 +104,8 @@ export default async function ChainsPage({ searchParams }: Props) {
                       {c.source.name} → {c.target.name}
                     </td>
                     <td className="py-1.5 pr-3 font-mono">{c.links}</td>
-                    <td className="py-1.5 pr-3 font-mono text-xs">{c.verification}</td>
-                    <td className="py-1.5 font-mono text-xs">{c.createdAt.toISOString().slice(0, 10)}</td>
+                    <td className="hidden py-1.5 pr-3 font-mono text-xs sm:table-cell">{c.verification}</td>
+                    <td className="hidden py-1.5 font-mono text-xs sm:table-cell">{c.createdAt.toISOString().slice(0, 10)}</td>
                   </tr>
                 ))}
               </tbody>

@@ -25,6 +25,8 @@ type Props = {
   canCertify: boolean;
 };
 
+const DEFAULT_NAME = "Untitled workbench";
+
 type Selected = { type: "node" | "edge"; id: string } | null;
 
 export function Workbench(props: Props) {
@@ -41,7 +43,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const [selected, setSelected] = useState<Selected>(null);
   const [jobs, setJobs] = useState<Record<string, JobProgress>>({});
   const [draft, setDraft] = useState<DraftInfo | null>(initialDraft);
-  const [draftName, setDraftName] = useState(initialDraft?.name ?? "Untitled workbench");
+  const [draftName, setDraftName] = useState(initialDraft?.name ?? DEFAULT_NAME);
   const [saveState, setSaveState] = useState<"saved" | "saving" | "unsaved" | "error">("saved");
   const [certifying, setCertifying] = useState(false);
   const [outcome, setOutcome] = useState<{ ok: boolean; message: string; chainId: string | null } | null>(null);
@@ -62,12 +64,15 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       try {
         let id = draft?.id;
         if (!id) {
-          creating.current ??= browserApi("POST", "/api/drafts", { name: draftName, canvas: w }).then((res) => {
+          // A draft nobody named yet is told apart in the lists by when it was begun.
+          const name = draftName === DEFAULT_NAME ? `${DEFAULT_NAME} ${new Date().toISOString().slice(0, 16).replace("T", " ")}` : draftName;
+          creating.current ??= browserApi("POST", "/api/drafts", { name, canvas: w }).then((res) => {
             if (res.status >= 300) throw new Error("not saved");
             return (res.body as { id: string }).id;
           });
           id = await creating.current;
-          setDraft({ id, name: draftName, shared: false, mine: true, ownerName: "" });
+          setDraft({ id, name, shared: false, mine: true, ownerName: "" });
+          setDraftName(name);
           window.history.replaceState(null, "", `/chains/drafts/${id}`);
         } else {
           const res = await browserApi("PATCH", `/api/drafts/${id}`, { canvas: w });
