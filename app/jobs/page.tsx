@@ -76,12 +76,13 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
           {page.items.length === 0 ? (
             <p className="py-6 text-center text-sm text-ink-faint">No jobs here yet.</p>
           ) : (
+            <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
               <thead className="text-xs uppercase tracking-wider text-ink-faint">
                 <tr>
                   <th className="py-2 font-medium">Job</th>
                   <th className="py-2 font-medium">Status</th>
-                  <th className="w-40 py-2 font-medium">Progress</th>
+                  <th className="w-24 py-2 font-medium sm:w-40">Progress</th>
                   <th className="hidden py-2 font-medium sm:table-cell">Started by</th>
                 </tr>
               </thead>
@@ -110,6 +111,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
                 ))}
               </tbody>
             </table>
+            </div>
           )}
           {page.nextCursor ? (
             <div className="mt-4 text-right text-sm">
