@@ -52,7 +52,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
           Atlas builds, searches, lumpings and large composite checks run in the background; each page updates while it runs.
         </p>
       </div>
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1.7fr)_minmax(0,1fr)]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,1.7fr)_minmax(0,1fr)]">
         <Panel title="Recent jobs">
           <nav aria-label="Filter jobs" className="mb-4 flex flex-wrap gap-2 text-sm">
             <Link href={href({ status: search.status })} aria-current={!mine ? "page" : undefined} className={!mine ? "font-semibold text-tide-800" : "text-ink-soft hover:text-tide-700"}>
