@@ -202,7 +202,10 @@ function ProjectionEditor({
   const [busy, setBusy] = useState(false);
   const N = spec.block;
   const states = k ** N;
-  const m = Math.max(2, ...spec.projection.map((v) => v + 1));
+  const used = Math.max(2, ...spec.projection.map((v) => v + 1));
+  const [symbolsText, setSymbolsText] = useState(String(used));
+  const symbols = Number(symbolsText);
+  const m = Number.isInteger(symbols) && symbols >= used && symbols <= Math.min(36, k ** N) ? symbols : used;
   const issue = projectionIssue(spec.projection, states);
   const maxBlock = Math.max(1, Math.floor(Math.log(4096) / Math.log(k)));
   const blockError = /^\d+$/.test(blockText) && Number(blockText) >= 1 && Number(blockText) <= maxBlock ? undefined : `A whole number from 1 to ${maxBlock} (at most 4096 block states).`;
@@ -249,7 +252,10 @@ function ProjectionEditor({
       <Field id={`${id}-block`} label="Block size N" error={blockError}>
         <input id={`${id}-block`} inputMode="numeric" disabled={readOnly} value={blockText} onChange={(e) => setBlock(e.target.value)} className={inputClass} />
       </Field>
-      {k === 2 ? (
+      <Field id={`${id}-symbols`} label={`Coarse symbols m (2–${Math.min(36, states)})`} hint="With more than two, each block state gets a symbol picker.">
+        <input id={`${id}-symbols`} inputMode="numeric" disabled={readOnly} value={symbolsText} onChange={(e) => setSymbolsText(e.target.value)} className={inputClass} />
+      </Field>
+      {k === 2 && m === 2 ? (
         <fieldset className="space-y-1" disabled={readOnly}>
           <legend className="text-xs font-medium text-ink-soft">Presets</legend>
           <div className="flex flex-wrap gap-1">
@@ -302,7 +308,7 @@ function ProjectionEditor({
                     aria-label={`Block ${cells.join("")}: coarse symbol`}
                     className="rounded border border-line-strong px-1 font-mono text-xs"
                   >
-                    {Array.from({ length: Math.min(states, m + 1) }, (_, x) => (
+                    {Array.from({ length: m }, (_, x) => (
                       <option key={x} value={x}>
                         {x}
                       </option>
