@@ -439,3 +439,27 @@ export const annotations = sqliteTable(
   (t) => [index("annotations_subject_idx").on(t.workspaceId, t.subjectType, t.subjectId)],
 );
 export type Annotation = InferSelectModel<typeof annotations>;
+
+/** A workbench canvas saved per person (issue 11): private unless shared read-only with the workspace. */
+export const drafts = sqliteTable(
+  "drafts",
+  {
+    id: id(),
+    workspaceId: text("workspace_id")
+      .notNull()
+      .references(() => workspaces.id, { onDelete: "cascade" }),
+    ownerId: text("owner_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    /** JSON of the canvas: nodes, edges, chain (components/workbench/workbenchState). */
+    body: text("body").notNull().default("{}"),
+    shared: integer("shared", { mode: "boolean" }).notNull().default(false),
+    createdAt: createdAt(),
+    updatedAt: integer("updated_at", { mode: "timestamp_ms" })
+      .notNull()
+      .default(sql`(unixepoch('subsec') * 1000)`),
+  },
+  (t) => [index("drafts_workspace_owner_idx").on(t.workspaceId, t.ownerId, t.updatedAt)],
+);
+export type Draft = InferSelectModel<typeof drafts>;

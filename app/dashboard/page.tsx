@@ -16,7 +16,7 @@ export const metadata: Metadata = { title: "Workspace home" };
 const COUNTS = [
   { key: "models", label: "Models", href: "/atlas" },
   { key: "maps", label: "Certified maps", href: "/atlas" },
-  { key: "chains", label: "Chains", href: "/chains/new" },
+  { key: "chains", label: "Chains", href: "/chains" },
   { key: "jobs", label: "Jobs", href: "/jobs" },
 ] as const;
 

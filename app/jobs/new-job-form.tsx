@@ -1,47 +1,76 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useId, useState } from "react";
+import { useId, useMemo, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
+import { DEFAULT_FIELDS, FORM_KINDS, jobParams, type FormKind, type JobFields } from "@/components/workbench/jobForms";
 
 export type KindOption = { name: string; title: string; example: unknown };
 
-/** Starts a job through POST /api/jobs and opens its page; errors appear next to their field. */
+const isFormKind = (name: string): name is FormKind => (FORM_KINDS as readonly string[]).includes(name);
+const inputClass = "mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-2 py-1.5 text-sm";
+
+/**
+ * Starts a job through POST /api/jobs and opens its page. Each kind has a form; the JSON of the
+ * parameters stays available behind "Advanced". Errors appear next to their field.
+ */
 export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
   const router = useRouter();
   const id = useId();
   const [kind, setKind] = useState(kinds[0]?.name ?? "");
-  const [params, setParams] = useState(() => JSON.stringify(kinds[0]?.example ?? {}, null, 2));
-  const [error, setError] = useState<{ field: string; message: string } | null>(null);
+  const [fields, setFields] = useState<JobFields>(() => (isFormKind(kinds[0]?.name ?? "") ? { ...DEFAULT_FIELDS[kinds[0].name as FormKind] } : {}));
+  const [advanced, setAdvanced] = useState(() => !isFormKind(kinds[0]?.name ?? ""));
+  const [json, setJson] = useState(() => JSON.stringify(kinds[0]?.example ?? {}, null, 2));
+  const [serverError, setServerError] = useState<{ field: string; message: string } | null>(null);
+  const [touched, setTouched] = useState(false);
   const [busy, setBusy] = useState(false);
+
+  const fromForm = useMemo(() => (isFormKind(kind) ? jobParams(kind, fields) : null), [kind, fields]);
 
   function chooseKind(name: string) {
     setKind(name);
-    setParams(JSON.stringify(kinds.find((k) => k.name === name)?.example ?? {}, null, 2));
-    setError(null);
+    setServerError(null);
+    setTouched(false);
+    if (isFormKind(name)) {
+      setFields({ ...DEFAULT_FIELDS[name] });
+      setAdvanced(false);
+    } else setAdvanced(true);
+    setJson(JSON.stringify(kinds.find((k) => k.name === name)?.example ?? {}, null, 2));
   }
+
+  function toggleAdvanced(on: boolean) {
+    if (on && fromForm?.params) setJson(JSON.stringify(fromForm.params, null, 2));
+    setAdvanced(on);
+  }
+
+  const set = (name: string) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => {
+    setFields({ ...fields, [name]: e.target.value });
+    setServerError(null);
+  };
 
   async function submit(event: React.FormEvent) {
     event.preventDefault();
-    setError(null);
-    let parsed: unknown;
-    try {
-      parsed = JSON.parse(params);
-    } catch {
-      setError({ field: "params", message: "The parameters are not valid JSON." });
-      return;
+    setTouched(true);
+    setServerError(null);
+    let params: unknown;
+    if (advanced) {
+      try {
+        params = JSON.parse(json);
+      } catch {
+        setServerError({ field: "params", message: "The parameters are not valid JSON." });
+        return;
+      }
+    } else {
+      if (!fromForm?.params) return;
+      params = fromForm.params;
     }
     setBusy(true);
     try {
-      const response = await fetch("/api/jobs", {
-        method: "POST",
-        headers: { "content-type": "application/json" },
-        body: JSON.stringify({ kind, params: parsed }),
-      });
+      const response = await fetch("/api/jobs", { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ kind, params }) });
       const body = await response.json();
       if (!response.ok) {
         const field = String(body?.error?.field ?? "form");
-        setError({ field: field.startsWith("params") ? "params" : field === "kind" ? "kind" : "form", message: body?.error?.message ?? "The job was not started." });
+        setServerError({ field: field.startsWith("params.") && !advanced ? field.slice("params.".length) : field.startsWith("params") ? "params" : field === "kind" ? "kind" : "form", message: body?.error?.message ?? "The job was not started." });
         return;
       }
       router.push(`/jobs/${body.id}`);
@@ -50,54 +79,95 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
     }
   }
 
-  const paramsError = error?.field === "params" ? error.message : null;
-  const kindError = error?.field === "kind" ? error.message : null;
-  const formError = error?.field === "form" ? error.message : null;
+  const errorFor = (name: string): string | undefined =>
+    serverError?.field === name ? serverError.message : touched || fields[name] !== DEFAULT_FIELDS[kind as FormKind]?.[name] ? fromForm?.errors[name] : undefined;
+  const field = (name: string, label: string, control: React.ReactNode, hint?: string) => (
+    <div key={name}>
+      <label htmlFor={`${id}-${name}`} className="block text-sm font-medium">
+        {label}
+      </label>
+      {control}
+      {hint ? <p className="mt-0.5 text-xs text-ink-faint">{hint}</p> : null}
+      <p id={`${id}-${name}-error`} aria-live="polite" className="mt-1 text-xs text-brick-700">
+        {errorFor(name) ?? ""}
+      </p>
+    </div>
+  );
+  const text = (name: string, label: string, hint?: string) =>
+    field(name, label, <input id={`${id}-${name}`} value={fields[name] ?? ""} onChange={set(name)} className={inputClass} aria-describedby={`${id}-${name}-error`} aria-invalid={errorFor(name) ? true : undefined} />, hint);
+  const searchSelect = () =>
+    field(
+      "search",
+      "Search for",
+      <select id={`${id}-search`} value={fields.search ?? "projections"} onChange={set("search")} className={inputClass}>
+        <option value="projections">binary projections</option>
+        <option value="partitions">partitions (congruences)</option>
+        <option value="both">both</option>
+      </select>,
+    );
+
+  const formError = serverError && (serverError.field === "form" || (!advanced && !Object.keys(fields).includes(serverError.field) && serverError.field !== "kind")) ? serverError.message : null;
   return (
-    <form onSubmit={submit} className="space-y-3" noValidate>
-      <div>
-        <label htmlFor={`${id}-kind`} className="block text-sm font-medium">
-          Kind
-        </label>
-        <select
-          id={`${id}-kind`}
-          value={kind}
-          onChange={(e) => chooseKind(e.target.value)}
-          aria-describedby={kindError ? `${id}-kind-error` : undefined}
-          className="mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-2 py-1.5 text-sm"
-        >
+    <form onSubmit={submit} className="space-y-3" noValidate aria-label="Start a job">
+      {field(
+        "kind",
+        "Kind",
+        <select id={`${id}-kind`} value={kind} onChange={(e) => chooseKind(e.target.value)} className={inputClass}>
           {kinds.map((k) => (
             <option key={k.name} value={k.name}>
               {k.title}
             </option>
           ))}
-        </select>
-        <p id={`${id}-kind-error`} aria-live="polite" className="mt-1 text-xs text-brick-700">
-          {kindError}
-        </p>
-      </div>
-      <div>
-        <label htmlFor={`${id}-params`} className="block text-sm font-medium">
-          Parameters (JSON)
+        </select>,
+      )}
+      {!advanced && kind === "search-projection" ? (
+        <>
+          {text("rule", "Rule (0–255)")}
+          <div className="grid grid-cols-2 gap-2">
+            {text("minBlock", "Smallest block size (2–6)")}
+            {text("maxBlock", "Largest block size (2–6)")}
+          </div>
+          {searchSelect()}
+        </>
+      ) : null}
+      {!advanced && kind === "eca-atlas" ? (
+        <>
+          <div className="grid grid-cols-2 gap-2">
+            {text("minBlock", "Smallest block size (2–5)")}
+            {text("maxBlock", "Largest block size (2–5)")}
+          </div>
+          {searchSelect()}
+        </>
+      ) : null}
+      {!advanced && kind === "lump-chain" ? (
+        <>
+          {field(
+            "matrix",
+            "Transition matrix (one row per line)",
+            <textarea id={`${id}-matrix`} rows={4} value={fields.matrix ?? ""} onChange={set("matrix")} spellCheck={false} className={`${inputClass} font-mono text-xs`} aria-describedby={`${id}-matrix-error`} />,
+            "Exact entries such as 1/3 or 0.25; each row sums to 1.",
+          )}
+          {text("labels", "State labels (comma-separated; blank for s0, s1, …)")}
+          {text("apart", "States to keep apart (labels, comma-separated)", "The coarsest lumping never merges these with any other state.")}
+        </>
+      ) : null}
+      {isFormKind(kind) ? (
+        <label className="flex items-center gap-2 text-xs text-ink-soft">
+          <input type="checkbox" checked={advanced} onChange={(e) => toggleAdvanced(e.target.checked)} />
+          Advanced: edit the parameters as JSON
         </label>
-        <textarea
-          id={`${id}-params`}
-          value={params}
-          onChange={(e) => setParams(e.target.value)}
-          rows={6}
-          spellCheck={false}
-          aria-invalid={paramsError ? true : undefined}
-          aria-describedby={`${id}-params-error`}
-          className="mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-2 py-1.5 font-mono text-xs"
-        />
-        <p id={`${id}-params-error`} aria-live="polite" className="mt-1 text-xs text-brick-700">
-          {paramsError}
-        </p>
-      </div>
+      ) : null}
+      {advanced
+        ? field(
+            "params",
+            "Parameters (JSON)",
+            <textarea id={`${id}-params`} value={json} onChange={(e) => setJson(e.target.value)} rows={6} spellCheck={false} className={`${inputClass} font-mono text-xs`} aria-describedby={`${id}-params-error`} />,
+          )
+        : null}
       <p aria-live="polite" className="text-sm text-brick-700">
-        {formError}
+        {formError ?? ""}
       </p>
-      <button type="submit" disabled={busy || !kind} className={buttonClass("primary")}>
+      <button type="submit" disabled={busy || !kind || (!advanced && !fromForm?.params)} className={buttonClass("primary")}>
         {busy ? "Starting…" : "Start job"}
       </button>
     </form>

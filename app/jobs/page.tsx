@@ -52,7 +52,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
           Atlas builds, searches, lumpings and large composite checks run in the background; each page updates while it runs.
         </p>
       </div>
-      <div className="grid gap-6 lg:grid-cols-[1.7fr_1fr]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-6 lg:grid-cols-[minmax(0,1.7fr)_minmax(0,1fr)]">
         <Panel title="Recent jobs">
           <nav aria-label="Filter jobs" className="mb-4 flex flex-wrap gap-2 text-sm">
             <Link href={href({ status: search.status })} aria-current={!mine ? "page" : undefined} className={!mine ? "font-semibold text-tide-800" : "text-ink-soft hover:text-tide-700"}>
@@ -76,13 +76,14 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
           {page.items.length === 0 ? (
             <p className="py-6 text-center text-sm text-ink-faint">No jobs here yet.</p>
           ) : (
+            <div className="overflow-x-auto">
             <table className="w-full text-left text-sm">
               <thead className="text-xs uppercase tracking-wider text-ink-faint">
                 <tr>
                   <th className="py-2 font-medium">Job</th>
                   <th className="py-2 font-medium">Status</th>
-                  <th className="w-40 py-2 font-medium">Progress</th>
-                  <th className="py-2 font-medium">Started by</th>
+                  <th className="w-24 py-2 font-medium sm:w-40">Progress</th>
+                  <th className="hidden py-2 font-medium sm:table-cell">Started by</th>
                 </tr>
               </thead>
               <tbody className="divide-y divide-line">
@@ -100,7 +101,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
                     <td className="py-2 pr-3">
                       <ProgressBar value={job.progress} label={`Progress of job ${job.id}`} />
                     </td>
-                    <td className="py-2 text-xs text-ink-soft">
+                    <td className="hidden py-2 text-xs text-ink-soft sm:table-cell">
                       {job.ownerId ? (members.get(job.ownerId) ?? "a former member") : "—"}
                       <time className="block text-ink-faint" dateTime={job.createdAt}>
                         {new Date(job.createdAt).toISOString().slice(0, 16).replace("T", " ")} UTC
@@ -110,6 +111,7 @@ export default async function JobsPage({ searchParams }: { searchParams: Promise
                 ))}
               </tbody>
             </table>
+            </div>
           )}
           {page.nextCursor ? (
             <div className="mt-4 text-right text-sm">

@@ -15,7 +15,7 @@ const SIGNED_IN_LINKS: NavLink[] = [
   { href: "/atlas", label: "Atlas" },
   { href: "/atlas/hierarchy", label: "Hierarchy" },
   { href: "/atlas/ask", label: "Ask" },
-  { href: "/chains/new", label: "New chain" },
+  { href: "/chains", label: "Chains" },
   { href: "/jobs", label: "Jobs" },
   { href: "/members", label: "Members" },
   { href: "/settings/tokens", label: "Tokens" },

@@ -27,8 +27,10 @@ export async function findModelByText({ workspaceId, text }: { workspaceId: stri
   }
   const result = await searchAtlas({ workspaceId, target: "models", q: wanted, limit: 8 });
   const items = result.items as Model[];
-  const exact = items.find((m) => m.name.toLowerCase() === wanted.toLowerCase());
-  if (exact) return { status: "found", model: exact };
+  // Names are chosen by people and need not be unique: two exact matches are a choice, never a silent pick.
+  const exact = items.filter((m) => m.name.toLowerCase() === wanted.toLowerCase());
+  if (exact.length === 1) return { status: "found", model: exact[0] };
+  if (exact.length > 1) return { status: "ambiguous", choices: exact };
   if (items.length === 1) return { status: "found", model: items[0] };
   return items.length === 0 ? { status: "none" } : { status: "ambiguous", choices: items };
 }

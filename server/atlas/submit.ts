@@ -54,17 +54,21 @@ export async function ensureModel({
   workspaceId,
   userId,
   model,
+  naming = {},
 }: {
   workspaceId: string;
   userId: string;
   model: unknown;
+  /** The maker's name and description, used when the model is stored now. */
+  naming?: { name?: string; description?: string };
 }): Promise<{ status: "created" | "existing"; model: Model }> {
   const owner = admit(model, "model", { workspaceId, userId });
   const outcome = await runVerification({ op: "model", model }, VERIFY_LIMITS, owner);
   if (outcome.status === "too-large") requireHolds(outcome, "model");
   if (outcome.status === "malformed") requireHolds(outcome, "model");
   if (outcome.status !== "model") throw new AppError("internal", "The verification worker answered a different question.");
-  const stored = await upsertModel({ workspaceId, model: outcome.fields, userId });
+  const fields = { ...outcome.fields, name: naming.name || outcome.fields.name, description: naming.description ?? outcome.fields.description };
+  const stored = await upsertModel({ workspaceId, model: fields, userId });
   return { status: stored.created ? "created" : "existing", model: stored.model };
 }
 

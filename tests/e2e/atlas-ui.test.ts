@@ -106,6 +106,8 @@ describe("the atlas as a theorist sees it", () => {
     await page.locator("table.font-mono").waitFor();
     const cells = await page.locator("table.font-mono tbody td").allTextContents();
     expect(cells).toEqual(["12", "14", "14", "14", "12", "14", "14", "14", "12"]);
+    // The maps panel streams in after the page (Suspense): wait for it rather than count at once.
+    await page.getByText("Coarse-grains onto (1)").waitFor();
     await expect(page.getByText("Coarse-grains onto (1)").count()).resolves.toBe(1);
     await page.context().close();
   });

@@ -6,6 +6,7 @@ import { routes as certificateByAddress } from "../certificates/[address]/schema
 import { routes as certificates } from "../certificates/schema";
 import { routes as certificateSchema } from "../certificates/schema/schema";
 import { routes as chains } from "../chains/schema";
+import { routes as drafts } from "../drafts/schema";
 import { jobRoutes } from "../jobs/schema";
 import { routes as retract } from "../maps/[id]/retract/schema";
 import { routes as mapById } from "../maps/[id]/schema";
@@ -57,6 +58,7 @@ const ALL_ROUTES: RouteConfig[] = [
   ...outboxRoutes,
   ...auditRoutes,
   ...annotationRoutes,
+  ...drafts,
 ];
 
 // The generator describes each query and path parameter through `.openapi()`, which this adds to

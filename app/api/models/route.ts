@@ -1,4 +1,6 @@
 import { searchAtlas } from "@/db/queries/atlas";
+import { nameModelIfGeneric } from "@/db/queries/model-names";
+import { describeModel, type Model as CanonicalModel } from "@/lib/models";
 import type { Model } from "@/db/schema";
 import { ensureModel } from "@/server/atlas/submit";
 import { authorize, resolveActor } from "../_lib/actor";
@@ -18,9 +20,19 @@ export const POST = route(async (request) => {
   const body = await parseBody(request, CreateBody);
   const actor = await resolveActor(request);
   authorize(actor, "model:create");
-  const stored = await ensureModel({ workspaceId: actor.workspace.id, userId: actor.user.id, model: body.model });
+  const stored = await ensureModel({ workspaceId: actor.workspace.id, userId: actor.user.id, model: body.model, naming: { name: body.name, description: body.description } });
+  const named =
+    stored.status === "existing" && body.name
+      ? await nameModelIfGeneric({
+          workspaceId: actor.workspace.id,
+          modelId: stored.model.id,
+          genericName: describeModel(JSON.parse(stored.model.canonical) as CanonicalModel),
+          name: body.name,
+          description: body.description,
+        })
+      : null;
   return Response.json(
-    { status: stored.status, model: modelJson(stored.model) },
+    { status: stored.status, model: modelJson(named ?? stored.model) },
     { status: stored.status === "created" ? 201 : 200 },
   );
 });

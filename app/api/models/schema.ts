@@ -19,6 +19,8 @@ export const CreateBody = z
       description:
         'A model: {"kind":"markov","labels":[…],"matrix":[["1/2","1/2"],…]}, {"kind":"eca","rule":110}, {"kind":"ca","k":3,"r":1,"table":[…]}, or a derived supercell/iterate/decimated model.',
     }),
+    name: z.string().trim().min(1).max(200).optional().meta({ description: "A name for a model stored now (an existing model keeps its name)." }),
+    description: z.string().trim().max(2000).optional(),
   })
   .meta({ id: "CreateModelRequest" });
 

@@ -21,19 +21,32 @@ type Props = { searchParams: Promise<Record<string, string | string[] | undefine
 const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v) ?? "";
 const input = "block w-full rounded-md border bg-paper-raised px-3 py-2 text-sm";
 
-function LookupProblem({ id, lookup, text }: { id: string; lookup: ModelLookup | null; text: string }) {
+function LookupProblem({ id, lookup, text, hrefFor }: { id: string; lookup: ModelLookup | null; text: string; hrefFor: (modelId: string) => string }) {
   if (!lookup || lookup.status === "found") return <div id={id} aria-live="polite" />;
   return (
     <div id={id} aria-live="polite" className="text-sm text-brick-700">
       {lookup.status === "none" ? (
         <p>No model in this atlas matches “{text}”.</p>
       ) : (
-        <p>
-          “{text}” matches several models: {lookup.choices.map((m) => m.name).join(", ")}. Type the full name or the rule number.
-        </p>
+        <>
+          <p>“{text}” matches several models; choose one:</p>
+          <ul className="mt-1 flex flex-wrap gap-2" aria-label={`Models matching ${text}`}>
+            {lookup.choices.map((m) => (
+              <li key={m.id}>
+                <Link href={hrefFor(m.id)} className="rounded-md px-2 py-0.5 text-tide-800 ring-1 ring-line-strong hover:bg-tide-50">
+                  {m.name} <span className="font-mono text-xs text-ink-faint">{m.kind}</span>
+                </Link>
+              </li>
+            ))}
+          </ul>
+        </>
       )}
     </div>
   );
+}
+
+function askHref(from: string, to: string, depth: string): string {
+  return `/atlas/ask?${new URLSearchParams({ from, to, depth }).toString()}`;
 }
 
 const VERDICT: Record<AskAnswer["answer"], { label: string; tone: string }> = {
@@ -183,14 +196,14 @@ export default async function AskPage({ searchParams }: Props) {
             A (finer model)
           </label>
           <input id="ask-from" name="from" defaultValue={fromValue} required placeholder="ECA 146, a name, or sha256:…" aria-describedby="ask-from-error" aria-invalid={from && from.status !== "found" ? true : undefined} className={`${input} ${from && from.status !== "found" ? "border-brick-600" : "border-line-strong"}`} />
-          <LookupProblem id="ask-from-error" lookup={from} text={fromText} />
+          <LookupProblem id="ask-from-error" lookup={from} text={fromText} hrefFor={(id) => askHref(id, toText, depthText)} />
         </div>
         <div className="space-y-1">
           <label htmlFor="ask-to" className="block text-sm font-medium">
             B (coarser model)
           </label>
           <input id="ask-to" name="to" defaultValue={toValue} required placeholder="ECA 128" aria-describedby="ask-to-error" aria-invalid={to && to.status !== "found" ? true : undefined} className={`${input} ${to && to.status !== "found" ? "border-brick-600" : "border-line-strong"}`} />
-          <LookupProblem id="ask-to-error" lookup={to} text={toText} />
+          <LookupProblem id="ask-to-error" lookup={to} text={toText} hrefFor={(id) => askHref(fromText, id, depthText)} />
         </div>
         <div className="space-y-1">
           <label htmlFor="ask-depth" className="block text-sm font-medium">

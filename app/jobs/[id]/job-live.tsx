@@ -4,6 +4,7 @@ import { useState } from "react";
 import useSWR from "swr";
 import { buttonClass } from "@/components/ui/button";
 import type { JobView } from "@/server/jobs/queue";
+import { JobResultView } from "../job-result";
 import { JobStatusBadge, ProgressBar } from "../job-status";
 
 async function fetchJob(url: string): Promise<JobView> {
@@ -59,11 +60,19 @@ export function JobLive({ initial, canCancel }: { initial: JobView; canCancel: b
           {job.error}
         </p>
       ) : null}
+      {job.finishedAt ? (
+        <p className="text-sm text-ink-soft" data-finished-at>
+          Finished {job.finishedAt.slice(0, 19).replace("T", " ")} UTC
+        </p>
+      ) : null}
       {job.result !== null && job.result !== undefined ? (
-        <details open={job.status === "succeeded"}>
-          <summary className="cursor-pointer text-sm font-medium text-tide-800">Result</summary>
-          <pre className="mt-2 max-h-96 overflow-auto rounded-md bg-paper p-3 font-mono text-xs">{JSON.stringify(job.result, null, 2)}</pre>
-        </details>
+        <>
+          <JobResultView result={job.result} params={job.params} />
+          <details>
+            <summary className="cursor-pointer text-sm font-medium text-tide-800">Result as JSON</summary>
+            <pre className="mt-2 max-h-96 overflow-auto rounded-md bg-paper p-3 font-mono text-xs">{JSON.stringify(job.result, null, 2)}</pre>
+          </details>
+        </>
       ) : null}
     </div>
   );

@@ -37,8 +37,6 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
           <dd>{job.createdAt}</dd>
           <dt className="text-ink-faint">Started</dt>
           <dd>{job.startedAt ?? "—"}</dd>
-          <dt className="text-ink-faint">Finished</dt>
-          <dd>{job.finishedAt ?? "—"}</dd>
           <dt className="text-ink-faint">Attempts</dt>
           <dd>{job.attempts}</dd>
           <dt className="text-ink-faint">Parameters</dt>

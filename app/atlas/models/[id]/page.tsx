@@ -12,6 +12,7 @@ import { PageHeader } from "@/components/atlas/page-header";
 import { Skeleton } from "@/components/atlas/skeleton";
 import { SpaceTimeExplorer } from "@/components/spacetime/space-time-explorer";
 import { ruleViewOf } from "@/components/spacetime/ruleViews";
+import { CompositeEdges } from "@/app/chains/composite-edges";
 import { Panel } from "@/components/ui/panel";
 import { WatchButton } from "@/components/watch-button";
 import { getModel, listSearchRecords, type MapKind } from "@/db/queries/atlas";
@@ -350,6 +351,10 @@ export default async function ModelPage({ params, searchParams }: Props) {
       ) : null}
 
       <ModelAnnotations workspaceId={workspace.id} modelId={model.id} />
+
+      <Suspense fallback={null}>
+        <CompositeEdges workspaceId={workspace.id} modelId={model.id} />
+      </Suspense>
 
       <Panel title="Recorded searches">
         <Suspense fallback={<Skeleton lines={2} label="Loading searches" />}>

@@ -1,0 +1,40 @@
+"use client";
+
+import { useDeferredValue, useState } from "react";
+import useSWR from "swr";
+import { inputClass } from "./model-forms";
+
+export type AtlasMap = { id: string; kind: string; block: number | null; source: { id: string; name: string }; target: { id: string; name: string }; status: string };
+
+async function fetchMaps(url: string): Promise<AtlasMap[]> {
+  const response = await fetch(url);
+  if (!response.ok) throw new Error(`search failed (${response.status})`);
+  return ((await response.json()) as { items: AtlasMap[] }).items;
+}
+
+/** Certified maps of the atlas, searched as the person types, dropped onto the canvas with their models. */
+export function MapSearch({ onAdd, disabled }: { onAdd: (m: AtlasMap) => void; disabled: boolean }) {
+  const [q, setQ] = useState("");
+  const query = useDeferredValue(q.trim());
+  const { data, error } = useSWR(`/api/search?target=maps&limit=30${query ? `&q=${encodeURIComponent(query)}` : ""}`, fetchMaps, { keepPreviousData: true });
+  const items = (data ?? []).filter((m) => m.status === "certified");
+  return (
+    <div className="space-y-1">
+      <input type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Search by model, e.g. ECA 146" aria-label="Search certified maps" className={inputClass} />
+      {error ? <p className="text-xs text-brick-700">The atlas search did not answer.</p> : null}
+      <ul className="max-h-56 space-y-1 overflow-auto pr-1" aria-label="Certified maps to add">
+        {items.length === 0 ? <li className="text-xs text-ink-faint">No certified map matches.</li> : null}
+        {items.map((m) => (
+          <li key={m.id} className="flex items-center gap-1 rounded border border-line px-1.5 py-0.5">
+            <span className="min-w-0 flex-1 truncate text-xs">
+              {m.source.name} → {m.target.name} <span className="font-mono text-ink-faint">{m.kind}{m.block ? ` N=${m.block}` : ""}</span>
+            </span>
+            <button type="button" disabled={disabled} onClick={() => onAdd(m)} className="rounded px-1 text-xs font-semibold text-tide-800 ring-1 ring-line-strong disabled:opacity-40" aria-label={`Add ${m.source.name} → ${m.target.name} (${m.kind})`}>
+              Add
+            </button>
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
