@@ -9,7 +9,10 @@ describe("cli search", () => {
   it("search projection finds 105 → 150 at block 2 (Israeli & Goldenfeld 2004)", async () => {
     const { code, stdout } = await runCli(run, ["projection", "--rule", "105", "--block", "2", "--json"]);
     expect(code).toBe(0);
-    expect(stdout.trim().split("\n").map((l) => JSON.parse(l).target)).toContain(150);
+    // rule 150 = 0b10010110: bit 4a + 2b + c of the rule number is the table entry (DOMAIN.md §1)
+    expect(stdout.trim().split("\n").map((l) => JSON.parse(l))).toContainEqual(
+      expect.objectContaining({ target: { k: 2, r: 1, table: [0, 1, 1, 0, 1, 0, 0, 1] } }),
+    );
   });
 
   it("search projection by table file gives the same targets as by rule number", async () => {
