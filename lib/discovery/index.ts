@@ -13,7 +13,7 @@ export { DISCOVERY_VERSION, ALGORITHMS, coverageRecord } from "./coverage";
 export type { Coverage, SearchKind } from "./coverage";
 export type { LongRunOptions, ProgressCallback, Stopped } from "./stopper";
 export type { RuleOption } from "./ca/ruleInput";
-export { coarsestLumping, lumpedChain } from "./coarsestLumping";
+export { coarsestLumping, exactLumpedChain, lumpedChain } from "./coarsestLumping";
 export type { CoarsestLumping, CoarsestLumpingOptions } from "./coarsestLumping";
 export { allLumpings, MAX_ENUMERATED_STATES } from "./allLumpings";
 export { sparseFromMatrix } from "./markov/sparseChain";

@@ -1,5 +1,5 @@
 import { checkProjection, coarseAlphabet, iterateTable, supercellTable, toDigits, type RuleTable } from "@/lib/ca";
-import { checkLumping, matrixPower, type Matrix } from "@/lib/markov";
+import { checkExactLumping, checkLumping, matrixPower, type Matrix } from "@/lib/markov";
 import { caShape, canonicalModel, describeModel, modelMatrix, modelRuleTable, modelsEqual, type Model } from "@/lib/models";
 import { equals, formatRational } from "@/lib/rational";
 import type { Certificate, Counterexample } from "@/lib/certificate";
@@ -37,6 +37,10 @@ export function checkSquare(cert: Certificate): SquareResult {
     }
     case "lumping": {
       const check = checkLumping(matrixPower(modelMatrix(source), map.steps), map.partition);
+      return check.ok ? compareMatrices(check.lumped, target, "lumped-entry-mismatch") : fails(check.counterexample);
+    }
+    case "exact-lumping": {
+      const check = checkExactLumping(matrixPower(modelMatrix(source), map.steps), map.partition);
       return check.ok ? compareMatrices(check.lumped, target, "lumped-entry-mismatch") : fails(check.counterexample);
     }
   }
