@@ -18,3 +18,4 @@ export type { CoarsestLumping, CoarsestLumpingOptions } from "./coarsestLumping"
 export { allLumpings, MAX_ENUMERATED_STATES } from "./allLumpings";
 export { sparseFromMatrix } from "./markov/sparseChain";
 export type { ChainInput, SparseChain } from "./markov/sparseChain";
+export { readSparseMatrixMarket, MAX_SPARSE_STATES } from "./markov/readSparseMatrixMarket";

@@ -42,14 +42,13 @@ function buildWideProblem(cell: Supercell): WideProblem {
   const seen = new Int32Array(n).fill(-1);
   for (let w = 0; w < windows; w++) {
     for (let i = width - 1, rest = w; i >= 0; i--, rest = Math.floor(rest / n)) inputs[w * width + i] = rest % n;
-    const note = (s: number) => {
+    for (let i = 0; i <= width; i++) {
+      const s = i < width ? inputs[w * width + i] : image[w];
       if (seen[s] !== w) {
         seen[s] = w;
         lists[s].push(w);
       }
-    };
-    for (let i = 0; i < width; i++) note(inputs[w * width + i]);
-    note(image[w]);
+    }
   }
   const occStart = new Int32Array(n + 1);
   for (let s = 0; s < n; s++) occStart[s + 1] = occStart[s] + lists[s].length;
