@@ -19,3 +19,5 @@ export { allLumpings, MAX_ENUMERATED_STATES } from "./allLumpings";
 export { sparseFromMatrix } from "./markov/sparseChain";
 export type { ChainInput, SparseChain } from "./markov/sparseChain";
 export { readSparseMatrixMarket, MAX_SPARSE_STATES } from "./markov/readSparseMatrixMarket";
+export { buildTotalisticAtlas, totalisticTable, TOTALISTIC_CODES } from "./totalisticAtlas";
+export type { TotalisticAtlas, TotalisticAtlasOptions, TotalisticAtlasRow } from "./totalisticAtlas";
