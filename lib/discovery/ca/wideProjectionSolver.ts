@@ -40,8 +40,11 @@ function buildWideProblem(cell: Supercell): WideProblem {
   const image = Int32Array.from(out);
   const lists: number[][] = Array.from({ length: n }, () => []);
   const seen = new Int32Array(n).fill(-1);
+  const bits = Math.log2(n);
+  const power = Number.isInteger(bits);
   for (let w = 0; w < windows; w++) {
-    for (let i = width - 1, rest = w; i >= 0; i--, rest = Math.floor(rest / n)) inputs[w * width + i] = rest % n;
+    if (power) for (let i = width - 1, rest = w; i >= 0; i--, rest >>>= bits) inputs[w * width + i] = rest & (n - 1);
+    else for (let i = width - 1, rest = w; i >= 0; i--, rest = Math.floor(rest / n)) inputs[w * width + i] = rest % n;
     for (let i = 0; i <= width; i++) {
       const s = i < width ? inputs[w * width + i] : image[w];
       if (seen[s] !== w) {

@@ -61,6 +61,17 @@ export function wideSupercell(t: RuleTable, block: number, steps: number): Super
   // output cell j of the centre block is window cell RN + j; its cone ends at cell RN + j + rT
   const divisor = Array.from({ length: N }, (_, j) => k ** (cellsInWindow - 1 - (R * N + j + r * steps)));
   const out = tableArray(n, windows);
+  if (k === 2 && cellsInWindow <= 30) {
+    // binary windows are bit strings (leftmost cell most significant): each cone is a shifted, masked slice
+    const shift = divisor.map((d) => Math.log2(d));
+    const mask = coneSize - 1;
+    for (let w = 0; w < windows; w++) {
+      let v = 0;
+      for (let j = 0; j < N; j++) v = (v << 1) | cone[(w >>> shift[j]) & mask];
+      out[w] = v;
+    }
+    return { n, radius: R, out };
+  }
   for (let w = 0; w < windows; w++) {
     let v = 0;
     for (let j = 0; j < N; j++) v = v * k + cone[Math.floor(w / divisor[j]) % coneSize];
