@@ -27,8 +27,10 @@ export async function main(argv: string[], io: CliIo): Promise<number> {
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
+  // exit only once stdout has flushed: process.exit right after a large write to a pipe cuts the output short
+  const exitAfterFlush = (code: number) => process.stdout.write("", () => process.exit(code));
   main(process.argv.slice(2), processIo).then(
-    (code) => process.exit(code),
+    (code) => exitAfterFlush(code),
     (err: unknown) => {
       process.stderr.write(`internal error: ${err instanceof Error ? err.message : String(err)}\n`);
       process.exit(3);

@@ -12,7 +12,7 @@ const createdAt = () =>
 
 export const ROLES = ["viewer", "contributor", "curator", "admin"] as const;
 export const MODEL_KINDS = ["markov", "eca", "ca", "supercell", "decimated-chain", "iterate"] as const;
-export const MAP_KINDS = ["decimation", "lumping", "iterate", "blocking", "projection", "coarse-graining"] as const;
+export const MAP_KINDS = ["decimation", "lumping", "iterate", "blocking", "projection", "coarse-graining", "exact-lumping"] as const;
 export const MAP_STATUSES = ["certified", "retracted"] as const;
 export const DERIVATIONS = ["reflect", "complement", "reflect-complement"] as const;
 export const JOB_STATUSES = ["queued", "running", "succeeded", "failed", "cancelled"] as const;

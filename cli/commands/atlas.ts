@@ -4,7 +4,7 @@ import { buildEcaAtlas, type EcaAtlas, type PartitionAtlasRow, type ProjectionAt
 
 const USAGE = `usage: npm run --silent cli -- atlas --max-block N [--partitions] [--json] [--deadline-ms MS] [--progress]
   Binary projections of all 256 ECAs for block sizes 2..N (N ≤ 7), or with --partitions, for each rule the
-  smallest block size ≤ N (N ≤ 8) with a proper congruence. --json prints one JSON object per line.
+  smallest block size ≤ N (N ≤ 9) with a proper congruence. --json prints one JSON object per line.
   "projections" is a JSON number, or a decimal string when it exceeds 2^53 (identity-like rules at N ≥ 6).
   Exit 0 when complete, 1 when stopped by the deadline (the lines printed cover the blocks reported on stderr).
 `;

@@ -8,6 +8,7 @@ import {
   certificateText,
   certifyBlocking,
   certifyDecimation,
+  certifyExactLumping,
   certifyIterate,
   certifyLumping,
   certifyProjection,
@@ -21,7 +22,8 @@ import { exceededLimit, fullLimits, type Limits } from "@/lib/verify";
 
 const USAGE = `usage: npm run --silent cli -- certify <map> [options]
   projection --rule R | --table FILE  --block N [--steps T] --projection BITS
-  lumping    --matrix FILE [--labels a,b,…] --partition 0,1,0,… [--steps S]
+  lumping    --matrix FILE [--labels a,b,…] --partition 0,1,0,… [--steps S] [--exact]
+             (--exact: exact lumpability, equal column sums into each block; Buchholz 1994)
   decimation --matrix FILE [--labels a,b,…] --steps K
   blocking   --rule R | --table FILE  --block N [--steps T]
   iterate    --rule R | --table FILE  --steps T
@@ -37,6 +39,7 @@ const OPTIONS = {
   matrix: { type: "string" },
   labels: { type: "string" },
   partition: { type: "string" },
+  exact: { type: "boolean" },
   ...LIMIT_OPTIONS,
 } as const;
 
@@ -90,8 +93,9 @@ async function build(map: string, values: Values, limits: Limits): Promise<Built
       const chain = await chainInput(values, limits);
       const partition = integerList(requireString(values, "partition"), "partition");
       const steps = integerOption(values, "steps", 1);
-      precheck({ kind: "lumping", partition, steps }, chain, limits);
-      return certifyLumping({ chain, partition, steps });
+      const kind = values.exact ? "exact-lumping" : "lumping";
+      precheck({ kind, partition, steps }, chain, limits);
+      return (values.exact ? certifyExactLumping : certifyLumping)({ chain, partition, steps });
     }
     case "decimation": {
       const chain = await chainInput(values, limits);

@@ -61,7 +61,8 @@ function readCertificate(value: unknown): Certificate | null {
 /**
  * Exactly the equation lib/verify/checkSquare.ts evaluates for this certificate (FORMAT.md, "What is
  * proved"): the source dynamics to the power map.steps on top, the target's own dynamics below, and down
- * the sides id (decimation, iterate), V_π (lumping), B_N (blocking) or π ∘ B_N (projection).
+ * the sides id (decimation, iterate), V_π (lumping), B_N (blocking) or π ∘ B_N (projection); an exact
+ * lumping is drawn with the lumped chain on top and U_π down the sides (U_π P^s = Q U_π).
  */
 export function certificateSquare(cert: Certificate): SquareParts {
   const { map, source, target } = cert;
@@ -76,6 +77,10 @@ export function certificateSquare(cert: Certificate): SquareParts {
       return { ...parts, down: `B_{${map.block}}` };
     case "projection":
       return { ...parts, down: projectionArrow(map.block) };
+    case "exact-lumping":
+      // Exact lumpability is U_π P^s = Q U_π (Buchholz 1994), U_π spreading a block's mass uniformly over
+      // its states: the arrows run from the lumped chain up to the fine one, so the lumped chain is on top.
+      return { topLeft: modelSpace(target), bottomLeft: modelSpace(source), top: modelName(target, "g", "Q"), bottom: parts.top, down: "U_{\\pi}" };
   }
 }
 
@@ -138,6 +143,7 @@ function metadataSquare(input: SquareInput): SquareParts {
   const top = power(dynamics(source, "f", "P"), steps);
   const bottom = dynamics(target, "g", "Q");
   let down = "\\mathrm{id}";
+  if (kind === "exact-lumping") return { topLeft: bottomLeft, bottomLeft: topLeft, top: bottom, bottom: top, down: "U_{\\pi}" };
   switch (kind) {
     case "lumping":
       down = "V_{\\pi}";

@@ -1,5 +1,5 @@
 import { CaInputError, checkProjection, ecaTable, iterateTable, supercellShape, type ProjectionCounterexample, type RuleTable } from "@/lib/ca";
-import { checkLumping, formatMatrix, matrixPower, type LumpingCounterexample, type Matrix } from "@/lib/markov";
+import { checkExactLumping, checkLumping, formatMatrix, matrixPower, type ExactLumpingCounterexample, type LumpingCounterexample, type Matrix } from "@/lib/markov";
 import { canonicalModel, modelMatrix, ruleTableModel, type Model } from "@/lib/models";
 import { formatRational } from "@/lib/rational";
 import { sealCertificate } from "./certificateAddress";
@@ -53,6 +53,16 @@ export function certifyLumping(input: { chain: unknown; partition: number[]; ste
   if (!check.ok) return check;
   const target: Model = { kind: "markov", labels: blockLabels(chainLabels(source), check.partition), matrix: formatMatrix(check.lumped) };
   return { ok: true, certificate: issue({ kind: "lumping", partition: check.partition, steps }, source, target) };
+}
+
+/** Exact lumping (Buchholz 1994) of a chain (of P^s when steps = s > 1) by a partition; the lumped chain is derived. */
+export function certifyExactLumping(input: { chain: unknown; partition: number[]; steps?: number }): Built<ExactLumpingCounterexample> {
+  const source = chainModel(input.chain);
+  const steps = input.steps ?? 1;
+  const check = checkExactLumping(matrixPower(modelMatrix(source), steps), input.partition);
+  if (!check.ok) return check;
+  const target: Model = { kind: "markov", labels: blockLabels(chainLabels(source), check.partition), matrix: formatMatrix(check.lumped) };
+  return { ok: true, certificate: issue({ kind: "exact-lumping", partition: check.partition, steps }, source, target) };
 }
 
 /** The k-step decimation P → P^k, with P^k computed exactly by repeated squaring. Always holds. */

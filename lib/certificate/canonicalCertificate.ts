@@ -38,6 +38,8 @@ function canonicalMap(map: (typeof CertificateSchema)["_output"]["map"]): Certif
       return { kind: "projection", block: map.block, steps: map.steps ?? map.block, projection: [...map.projection] };
     case "lumping":
       return { kind: "lumping", partition: canonicalPartition(map.partition), steps: map.steps ?? 1 };
+    case "exact-lumping":
+      return { kind: "exact-lumping", partition: canonicalPartition(map.partition), steps: map.steps ?? 1 };
     case "decimation":
       return { kind: "decimation", steps: map.steps };
     case "blocking":

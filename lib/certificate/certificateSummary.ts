@@ -17,6 +17,10 @@ export function certificateSummary(cert: Certificate): CertificateSummary {
       const of = map.steps > 1 ? ` of the ${map.steps}-step chain` : "";
       return { kind: map.kind, source, target, steps: map.steps, text: `${arrow}: lumping into ${blocks} blocks${of}` };
     }
+    case "exact-lumping": {
+      const of = map.steps > 1 ? ` of the ${map.steps}-step chain` : "";
+      return { kind: map.kind, source, target, steps: map.steps, text: `${arrow}: exact lumping into ${Math.max(...map.partition) + 1} blocks${of}` };
+    }
     case "decimation":
       return { kind: map.kind, source, target, steps: map.steps, text: `${arrow}: ${map.steps}-step decimation` };
     case "iterate":

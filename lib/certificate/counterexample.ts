@@ -1,10 +1,11 @@
 import type { ProjectionCounterexample } from "@/lib/ca";
-import type { LumpingCounterexample } from "@/lib/markov";
+import type { ExactLumpingCounterexample, LumpingCounterexample } from "@/lib/markov";
 
 /** Why a certificate's square does not commute, in terms a person can read and a test can re-check. */
 export type Counterexample =
   | ProjectionCounterexample
   | LumpingCounterexample
+  | ExactLumpingCounterexample
   /** The chain lumps, but the claimed lumped entry Q[block][targetBlock] is not the common sum. */
   | { kind: "lumped-entry-mismatch"; block: number; targetBlock: number; claimed: string; actual: string }
   /** Claimed P^k (or lumped matrix) differs from the recomputed one at (row, column), 0-based. */

@@ -4,7 +4,7 @@ export type { Certificate, CertificateMap, MapKind } from "./schema";
 export { CertificateInputError, canonicalCertificate } from "./canonicalCertificate";
 export { certificateAddress, certificateText, sealCertificate } from "./certificateAddress";
 export type { Counterexample } from "./counterexample";
-export { certifyBlocking, certifyDecimation, certifyIterate, certifyLumping, certifyProjection, parseProjectionString } from "./builders";
+export { certifyBlocking, certifyDecimation, certifyExactLumping, certifyIterate, certifyLumping, certifyProjection, parseProjectionString } from "./builders";
 export type { Built, RuleInput } from "./builders";
 export { certificateSummary } from "./certificateSummary";
 export type { CertificateSummary } from "./certificateSummary";

@@ -14,6 +14,8 @@ const symbol = z.number().int().min(0).max(255);
 export const MapSchema = z.discriminatedUnion("kind", [
   z.strictObject({ kind: z.literal("projection"), block: positive, steps: positive.optional(), projection: z.array(symbol).min(1) }),
   z.strictObject({ kind: z.literal("lumping"), partition: z.array(z.number().int().min(0).max(1_000_000)).min(1), steps: positive.optional() }),
+  // exact lumping (Buchholz 1994, DOMAIN.md §2b): column sums into each block are equal within the target block
+  z.strictObject({ kind: z.literal("exact-lumping"), partition: z.array(z.number().int().min(0).max(1_000_000)).min(1), steps: positive.optional() }),
   z.strictObject({ kind: z.literal("decimation"), steps: positive }),
   z.strictObject({ kind: z.literal("blocking"), block: positive, steps: positive.optional() }),
   z.strictObject({ kind: z.literal("iterate"), steps: positive }),
@@ -38,6 +40,7 @@ export const CertificateSchema = z.strictObject({
 export type CertificateMap =
   | { kind: "projection"; block: number; steps: number; projection: number[] }
   | { kind: "lumping"; partition: number[]; steps: number }
+  | { kind: "exact-lumping"; partition: number[]; steps: number }
   | { kind: "decimation"; steps: number }
   | { kind: "blocking"; block: number; steps: number }
   | { kind: "iterate"; steps: number };

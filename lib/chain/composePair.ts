@@ -84,7 +84,7 @@ function projectionThenBlocking(first: Certificate, a: Projection, M: number, st
 
 /** The chain's last model in the encoding the composite map produces (FORMAT.md, "Pasting"). */
 function compositeTarget(map: CertificateMap, source: Model, end: Model): Model | string {
-  if (map.kind === "lumping") {
+  if (map.kind === "lumping" || map.kind === "exact-lumping") {
     if (end.kind !== "markov" && end.kind !== "decimated") return `the chain ends at a ${end.kind}, not a Markov chain`;
     const labels = blockLabels(chainLabels(source), map.partition);
     return { kind: "markov", labels, matrix: modelMatrix(end).map((row) => row.map(formatRational)) };

@@ -11,6 +11,7 @@ export const ALGORITHMS = {
   projections: "binary projections: DPLL over projection values with the coarse rule's bits as variables, unit propagation, exact component counting; ECA symmetry transport",
   partitions: "congruences: union–find congruence closure of every principal pair Cg(x, y) with memo of total pairs, greedy extension to a maximal congruence; ECA symmetry transport",
   lumping: "coarsest strong lumping: splitter-based partition refinement (Derisavi, Hermanns & Sanders 2003; Valmari & Franceschinis 2010) with exact rational sums",
+  "exact-lumping": "coarsest exact lumping (Buchholz 1994): the same splitter refinement on the transposed chain, every initial block a splitter, exact sums",
 } as const;
 
 export type SearchKind = keyof typeof ALGORITHMS;

@@ -8,7 +8,7 @@ import { plainProjectionCounts } from "./testSupport";
 function countsOf(rule: number, block: number): Map<number, number> {
   const result = searchBinaryProjections({ rule, block });
   expect(result.stopped).toBeNull();
-  return new Map(result.targets.map((t) => [t.target, Number(t.count)]));
+  return new Map(result.targets.map((t) => [t.target as number, Number(t.count)]));
 }
 
 describe("searchBinaryProjections", () => {
@@ -40,7 +40,7 @@ describe("searchBinaryProjections", () => {
 
   it("finds rule 146 → rule 128 at block 3 with the all-ones projection (Israeli & Goldenfeld, Phys. Rev. E 73, 026203, 2006)", () => {
     const hit = searchBinaryProjections({ rule: 146, block: 3 }).targets.find((t) => t.target === 128);
-    expect(hit).toEqual({ target: 128, count: 1n, example: "00000001" });
+    expect(hit).toEqual({ target: 128, coarse: { k: 2, r: 1, table: [0, 0, 0, 0, 0, 0, 0, 1] }, count: 1n, example: "00000001" });
     const built = certifyProjection({ rule: 146, block: 3, projection: hit!.example });
     expect(built.ok && verifyCertificate(built.certificate).status).toBe("holds");
   });
@@ -77,6 +77,7 @@ describe("searchBinaryProjections", () => {
     expect(() => searchBinaryProjections({ rule: 256, block: 2 })).toThrow(CaInputError);
     expect(() => searchBinaryProjections({ rule: 30, block: 0 })).toThrow(/block/);
     expect(() => searchBinaryProjections({ block: 2 })).toThrow(/rule/);
-    expect(() => searchBinaryProjections({ table: { k: 2, r: 2, table: new Array(32).fill(0) }, block: 2 })).toThrow(/radius/);
+    expect(() => searchBinaryProjections({ rule: 30, block: 2, steps: 5 })).toThrow(/steps/);
+    expect(() => searchBinaryProjections({ rule: 30, block: 2, steps: 0 })).toThrow(/steps/);
   });
 });

@@ -66,6 +66,6 @@ describe("searchCongruences", () => {
   });
 
   it("rejects a block size beyond its table limit", () => {
-    expect(() => searchCongruences({ rule: 30, block: 9 })).toThrow(/block/);
+    expect(() => searchCongruences({ rule: 30, block: 10 })).toThrow(/block/);
   });
 });

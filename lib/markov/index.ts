@@ -6,6 +6,8 @@ export { matrixPower } from "./matrixPower";
 export { canonicalPartition, blockCount } from "./canonicalPartition";
 export { checkLumping } from "./checkLumping";
 export type { LumpingCheck, LumpingCounterexample } from "./checkLumping";
+export { checkExactLumping } from "./checkExactLumping";
+export type { ExactLumpingCheck, ExactLumpingCounterexample } from "./checkExactLumping";
 export { parseCsvMatrix, parseMatrixMarket } from "./parseMatrix";
 export type { ParseMatrixOptions } from "./parseMatrix";
 export { stationaryDistributions, communicatingClasses, applyRow } from "./stationaryDistributions";

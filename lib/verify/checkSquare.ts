@@ -1,5 +1,5 @@
 import { checkProjection, coarseAlphabet, iterateTable, supercellTable, toDigits, type RuleTable } from "@/lib/ca";
-import { checkLumping, matrixPower, type Matrix } from "@/lib/markov";
+import { checkExactLumping, checkLumping, matrixPower, type Matrix } from "@/lib/markov";
 import { caShape, canonicalModel, describeModel, modelMatrix, modelRuleTable, modelsEqual, type Issue, type Model } from "@/lib/models";
 import { equals, formatRational } from "@/lib/rational";
 import { blockLabels, chainLabels, type Certificate, type Counterexample } from "@/lib/certificate";
@@ -48,6 +48,11 @@ export function checkSquare(cert: Certificate): SquareResult {
     }
     case "lumping": {
       const check = checkLumping(matrixPower(modelMatrix(source), map.steps), map.partition);
+      if (!check.ok) return fails(check.counterexample);
+      return compareMatrices(check.lumped, target, "lumped-entry-mismatch", holds(map.steps, null), blockLabels(chainLabels(source), check.partition));
+    }
+    case "exact-lumping": {
+      const check = checkExactLumping(matrixPower(modelMatrix(source), map.steps), map.partition);
       if (!check.ok) return fails(check.counterexample);
       return compareMatrices(check.lumped, target, "lumped-entry-mismatch", holds(map.steps, null), blockLabels(chainLabels(source), check.partition));
     }

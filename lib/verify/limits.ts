@@ -87,7 +87,7 @@ export function caCost(windows: number, steps: number): number {
 function asks(cert: Certificate): Ask[] {
   const { map, source, target } = cert;
   const out: Ask[] = [];
-  if (map.kind === "lumping" || map.kind === "decimation") {
+  if (map.kind === "lumping" || map.kind === "exact-lumping" || map.kind === "decimation") {
     out.push(...chainAsks(source, map.steps), ...chainAsks(target, 1));
     return out;
   }

@@ -5,13 +5,13 @@ import type { Certificate } from "@/lib/certificate";
 export function structureIssues(cert: Certificate): Issue[] {
   const { map, source, target } = cert;
   const issues: Issue[] = [];
-  const chainMap = map.kind === "lumping" || map.kind === "decimation";
+  const chainMap = map.kind === "lumping" || map.kind === "exact-lumping" || map.kind === "decimation";
   const fits = chainMap ? isChainLike : isCaLike;
   const want = chainMap ? "a Markov chain" : "a cellular automaton";
   if (!fits(source)) issues.push({ path: "source", message: `a ${map.kind} certificate needs ${want} as its source, not a ${source.kind}` });
   if (!fits(target)) issues.push({ path: "target", message: `a ${map.kind} certificate needs ${want} as its target, not a ${target.kind}` });
   if (issues.length > 0) return issues;
-  if (map.kind === "lumping" && map.partition.length !== chainSize(source))
+  if ((map.kind === "lumping" || map.kind === "exact-lumping") && map.partition.length !== chainSize(source))
     issues.push({ path: "map.partition", message: `has ${map.partition.length} entries for a ${chainSize(source)}-state chain` });
   if (map.kind === "projection") {
     const { k } = caShape(source);

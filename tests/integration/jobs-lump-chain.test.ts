@@ -66,4 +66,19 @@ describe("the lump-chain job", () => {
     expect(err.status).toBe(400);
     expect(err.field).toBe("params.observable");
   });
+
+  it("with exact: true finds the coarsest exact lumping and stores it as an exact-lumping map", async () => {
+    // Hand-worked in lib/markov/checkExactLumping.test.ts: {b, c} receive 1/4 each from {a} and 3/4 each from {b, c},
+    // so [0, 1, 1] is exactly lumpable, while strongly b and c send 1/3 and 1/6 into {a}.
+    const hand = { kind: "markov" as const, labels: ["a", "b", "c"], matrix: [["1/2", "1/4", "1/4"], ["1/3", "1/3", "1/3"], ["1/6", "5/12", "5/12"]] };
+    const job = await queue.enqueue({ workspaceId: ws, ownerId: people.contributor.id, kind: "lump-chain", params: { chain: hand, observable: ["x", "y", "y"], exact: true } });
+    await runner.drain();
+    const done = (await queue.get({ jobId: job.id, workspaceId: ws }))!;
+    expect(done.error).toBeNull();
+    expect(done.result).toMatchObject({ blocks: 2, partition: [0, 1, 1], certificate: { status: "created" }, searchRecord: "stored" });
+    const model = await getModel({ workspaceId: ws, idOrAddress: modelAddress(canonicalModel(hand)) });
+    expect((await listMapsFrom({ workspaceId: ws, modelId: model!.id })).items.map((m) => m.kind)).toEqual(["exact-lumping"]);
+    const [record] = await listSearchRecords({ workspaceId: ws, modelId: model!.id });
+    expect(record.kind).toBe("coarsest-exact-lumping");
+  });
 });

@@ -65,6 +65,16 @@ export function congruenceClosure(
   };
 
   for (const [x, y] of seeds) union(x, y);
+  if (cell.radius !== 1) {
+    while (stack.length > 0 && !total) {
+      const y = stack.pop() as number;
+      const x = stack.pop() as number;
+      work.value += out.length * (2 * cell.radius + 1) / n;
+      if (work.value > limit) return null;
+      translateWide(cell, x, y, union, () => total);
+    }
+    return total ? null : { parent, classes };
+  }
   const n2 = n * n;
   while (stack.length > 0 && !total) {
     const y = stack.pop() as number;
@@ -84,6 +94,22 @@ export function congruenceClosure(
   return total ? null : { parent, classes };
 }
 
+/**
+ * The unary translations of a radius-R table at every window position: for position i with stride n^(2R-i),
+ * union F(…, x at i, …) with F(…, y at i, …) over every context of the other positions.
+ */
+function translateWide(cell: Supercell, x: number, y: number, union: (a: number, b: number) => void, done: () => boolean): void {
+  const { n, out } = cell;
+  for (let stride = out.length / n; stride >= 1 && !done(); stride /= n) {
+    const span = stride * n;
+    for (let base = 0; base < out.length && !done(); base += span) {
+      const bx = base + x * stride;
+      const by = base + y * stride;
+      for (let post = 0; post < stride; post++) union(out[bx + post], out[by + post]);
+    }
+  }
+}
+
 /** The classes of a closure as a projection in canonical form (classes numbered by first appearance). */
 export function closurePartition(closure: Closure): number[] {
   const n = closure.parent.length;
@@ -101,17 +127,18 @@ export function closurePartition(closure: Closure): number[] {
   return proj;
 }
 
-/** Coarse rule of a congruence given as a canonical projection onto m classes: table over m^3 neighbourhoods. */
+/** Coarse rule of a congruence given as a canonical projection onto m classes: table over m^(2R+1) neighbourhoods. */
 export function quotientTable(cell: Supercell, proj: readonly number[]): number[] {
   const { n, out } = cell;
+  const width = 2 * cell.radius + 1;
   const m = Math.max(...proj) + 1;
   const rep = new Array<number>(m).fill(-1);
   for (let s = 0; s < n; s++) if (rep[proj[s]] < 0) rep[proj[s]] = s;
-  const table: number[] = new Array(m * m * m);
-  for (let X = 0; X < m; X++) {
-    for (let Y = 0; Y < m; Y++) {
-      for (let Z = 0; Z < m; Z++) table[(X * m + Y) * m + Z] = proj[out[(rep[X] * n + rep[Y]) * n + rep[Z]]];
-    }
+  const table: number[] = new Array(m ** width);
+  for (let idx = 0; idx < table.length; idx++) {
+    let w = 0;
+    for (let i = width - 1, rest = idx, scale = 1; i >= 0; i--, rest = Math.floor(rest / m), scale *= n) w += rep[rest % m] * scale;
+    table[idx] = proj[out[w]];
   }
   return table;
 }

@@ -1,5 +1,6 @@
 import { CaInputError, assertRuleTable, ecaRuleOf, ecaTable, type RuleTable } from "@/lib/ca";
 import { ecaSupercell, generalSupercell, type Supercell } from "./supercell";
+import { wideSupercell } from "./wideSupercell";
 
 /** A CA given by ECA rule number or rule table (as the core's builders take it). */
 export interface RuleOption {
@@ -11,7 +12,8 @@ export interface ResolvedRule {
   table: RuleTable;
   /** Wolfram code when the CA is an ECA */
   eca: number | null;
-  supercell: (block: number) => Supercell;
+  /** the supercell at block N with T steps (T defaults to N); radius ceil(rT / N) */
+  supercell: (block: number, steps?: number) => Supercell;
 }
 
 /** Checks the rule input and the block size, and says how to build its supercell table for the search. */
@@ -26,13 +28,21 @@ export function resolveRule(input: RuleOption): ResolvedRule {
             throw new CaInputError("rule", "a rule number or a rule table is required");
           })();
   assertRuleTable(table);
-  if (table.r !== 1) throw new CaInputError("r", `the search handles radius-1 CAs; got radius ${table.r}`);
   const eca = ecaRuleOf(table);
   return {
     table,
     eca,
-    supercell: (block) => (eca !== null ? ecaSupercell(eca, block) : generalSupercell(table.k, table.table, block)),
+    supercell: (block, steps = block) => {
+      if (steps !== block || table.r !== 1) return wideSupercell(table, block, steps);
+      return eca !== null ? ecaSupercell(eca, block) : generalSupercell(table.k, table.table, block);
+    },
   };
+}
+
+/** Steps per coarse step: 1 … 2N (DOMAIN.md §2b); defaults to the block size. */
+export function assertSteps(steps: unknown, block: number): asserts steps is number {
+  if (typeof steps !== "number" || !Number.isInteger(steps) || steps < 1 || steps > 2 * block)
+    throw new CaInputError("steps", `steps must be an integer from 1 to 2N = ${2 * block}, got ${String(steps)}`);
 }
 
 export function assertBlock(block: unknown, max: number): asserts block is number {

@@ -4,14 +4,18 @@
  * window = (left · n + centre) · n + right with n = k^N.
  */
 
-/** Search-side view of a radius-1 CA on n states: out[(a·n + b)·n + c]. */
+/**
+ * Search-side view of a CA on n states with radius R (1 for T ≤ N with a radius-1 source): out[w] for the window
+ * w = X_{-R} … X_R read as a base-n number, X_{-R} most significant; for R = 1, out[(a·n + b)·n + c].
+ */
 export interface Supercell {
   readonly n: number;
+  readonly radius: number;
   readonly out: Uint8Array | Uint16Array | Uint32Array;
 }
 
-function tableArray(n: number): Uint8Array | Uint16Array | Uint32Array {
-  const size = n * n * n;
+/** An output table for n states over `size` windows, in the narrowest integer type that holds a state. */
+export function tableArray(n: number, size: number = n * n * n): Uint8Array | Uint16Array | Uint32Array {
   if (n <= 256) return new Uint8Array(size);
   if (n <= 65536) return new Uint16Array(size);
   return new Uint32Array(size);
@@ -53,7 +57,7 @@ export function ecaSupercell(rule: number, block: number): Supercell {
     for (let j = 0; j < N; j++) v = (v << 1) | cone[(w >>> (N - 1 - j)) & coneMask];
     out[w] = v;
   }
-  return { n, out };
+  return { n, radius: 1, out };
 }
 
 /** Supercell table of a general radius-1 CA on k symbols (table indexed as in DOMAIN.md §1), block N, T = N. */
@@ -78,5 +82,5 @@ export function generalSupercell(k: number, table: ArrayLike<number>, block: num
     for (let i = 0; i < N; i++) v = v * k + cells[i];
     out[w] = v;
   }
-  return { n, out };
+  return { n, radius: 1, out };
 }

@@ -5,6 +5,8 @@
  * and each block is split by w. After a block splits, all its parts but the largest become splitters
  * ("process the smaller half"): the partition is already stable with respect to the union, so stability with
  * respect to the largest part follows. Each state is in O(log n) splitters, giving O(m log n) sums.
+ * Run on the transposed chain it gives the coarsest exact lumping (column sums); there the whole state space is
+ * not a stable splitter (column totals differ), so every initial block starts as a splitter (`allInitial`).
  */
 import type { ScaledEntries, SparseChain } from "./sparseChain";
 
@@ -14,7 +16,13 @@ export interface Refinement {
   blocks: number;
 }
 
-export function refineToLumping(chain: SparseChain, scaled: ScaledEntries, initial: ArrayLike<number>, shouldStop: () => boolean = () => false): Refinement | null {
+export function refineToLumping(
+  chain: Pick<SparseChain, "size" | "rowStart" | "col">,
+  scaled: ScaledEntries,
+  initial: ArrayLike<number>,
+  shouldStop: () => boolean = () => false,
+  allInitial = false,
+): Refinement | null {
   const n = chain.size;
   const { rowStart, col } = chain;
   // in-edges by target state
@@ -63,7 +71,7 @@ export function refineToLumping(chain: SparseChain, scaled: ScaledEntries, initi
     let largest = 0;
     for (let b = 1; b < start.length; b++) if (end[b] - start[b] > end[largest] - start[largest]) largest = b;
     for (let b = 0; b < start.length; b++)
-      if (b !== largest) {
+      if (b !== largest || allInitial) {
         queue.push(b);
         inQueue[b] = true;
       }

@@ -92,3 +92,34 @@ function exactRowSum(chain: SparseChain, i: number): Rational {
   for (let e = chain.rowStart[i]; e < chain.rowStart[i + 1]; e++) sum = add(sum, chain.value[e]);
   return sum;
 }
+
+/**
+ * The transposed chain's structure (row j lists the states i with P[i][j] > 0) with the scaled entries moved along,
+ * for the exact-lumping refinement. Sums of a column over a splitter are at most the column's total, so doubles
+ * stay exact when every column total is below 2^53; otherwise the entries move to BigInt.
+ */
+export function transposeScaled(chain: SparseChain, scaled: ScaledEntries): { graph: Pick<SparseChain, "size" | "rowStart" | "col">; scaled: ScaledEntries } {
+  const { size, rowStart, col } = chain;
+  const start = new Int32Array(size + 1);
+  for (let e = 0; e < col.length; e++) start[col[e] + 1]++;
+  for (let j = 0; j < size; j++) start[j + 1] += start[j];
+  const fill = start.slice(0, size);
+  const from = new Int32Array(col.length);
+  const edge = new Int32Array(col.length);
+  for (let i = 0; i < size; i++)
+    for (let e = rowStart[i]; e < rowStart[i + 1]; e++) {
+      const k = fill[col[e]]++;
+      from[k] = i;
+      edge[k] = e;
+    }
+  const graph = { size, rowStart: start, col: from };
+  if (scaled.kind === "number") {
+    const num = new Float64Array(col.length);
+    const total = new Float64Array(size);
+    for (let k = 0; k < col.length; k++) num[k] = scaled.num[edge[k]];
+    for (let e = 0; e < col.length; e++) total[col[e]] += scaled.num[e];
+    if (total.every((t) => t <= Number.MAX_SAFE_INTEGER)) return { graph, scaled: { kind: "number", num, L: scaled.L } };
+    return { graph, scaled: { kind: "bigint", num: Array.from(num, (v) => BigInt(v)), L: BigInt(scaled.L) } };
+  }
+  return { graph, scaled: { kind: "bigint", num: Array.from(edge, (e) => scaled.num[e]), L: scaled.L } };
+}

@@ -6,11 +6,13 @@ import type { ComputeContext } from "./types";
 
 export const EcaAtlasParams = z
   .strictObject({
-    minBlock: z.number().int().min(2).max(5).default(2),
-    maxBlock: z.number().int().min(2).max(5).default(3),
+    minBlock: z.number().int().min(2).max(9).default(2),
+    maxBlock: z.number().int().min(2).max(9).default(3),
     search: z.enum(["projections", "partitions", "both"]).default("projections"),
   })
-  .refine((p) => p.minBlock <= p.maxBlock, { path: ["maxBlock"], message: "maxBlock must be at least minBlock" });
+  .refine((p) => p.minBlock <= p.maxBlock, { path: ["maxBlock"], message: "maxBlock must be at least minBlock" })
+  // the congruence sweep reaches N = 9 (the smallest-block table); binary projections stop at 5 in a job
+  .refine((p) => p.search === "partitions" || p.maxBlock <= 5, { path: ["maxBlock"], message: "maxBlock is at most 5 for projections (9 for partitions alone)" });
 export type EcaAtlasParams = z.infer<typeof EcaAtlasParams>;
 
 export type EcaAtlasOutput = CaFindings & { stopped: "cancelled" | "deadline" | null; coverage: Coverage[] };

@@ -1,6 +1,6 @@
 // Runs in a job worker thread: lib/ only.
 import { z } from "zod";
-import { certifyLumping, type Certificate } from "@/lib/certificate";
+import { certifyExactLumping, certifyLumping, type Certificate } from "@/lib/certificate";
 import { coarsestLumping, type Coverage } from "@/lib/discovery";
 import { canonicalModel, modelAddress, modelMatrix } from "@/lib/models";
 import type { ComputeContext } from "./types";
@@ -18,6 +18,7 @@ export const LumpChainParams = z.strictObject({
     .min(1)
     .max(5000)
     .meta({ description: "One value per state; states with different values are never merged (the lumping refines this partition)." }),
+  exact: z.boolean().default(false).meta({ description: "Exact lumpability (equal column sums into each block; Buchholz 1994) instead of strong lumpability." }),
 }).refine((p) => p.observable.length === p.chain.matrix.length, { path: ["observable"], message: "give one observable value per state of the chain" });
 export type LumpChainParams = z.infer<typeof LumpChainParams>;
 
@@ -34,7 +35,7 @@ export type LumpChainOutput =
       coverage: Coverage;
     };
 
-/** The coarsest strong lumping that keeps the observable's classes apart, certified when it merges any states. */
+/** The coarsest strong (or exact) lumping that keeps the observable's classes apart, certified when it merges any states. */
 export function compute(params: LumpChainParams, context: ComputeContext): LumpChainOutput {
   let model;
   try {
@@ -46,11 +47,11 @@ export function compute(params: LumpChainParams, context: ComputeContext): LumpC
   if (params.observable.length !== states) {
     return { ok: false, reason: `the observable has ${params.observable.length} values for a ${states}-state chain`, field: "params.observable" };
   }
-  const found = coarsestLumping({ chain: modelMatrix(model), labels: params.observable, signal: context.signal, onProgress: context.onProgress });
+  const found = coarsestLumping({ chain: modelMatrix(model), labels: params.observable, exact: params.exact, signal: context.signal, onProgress: context.onProgress });
   const base = { ok: true as const, stopped: found.stopped, states, blocks: found.blocks, partition: found.partition, chainAddress: modelAddress(model), coverage: found.coverage };
   if (found.stopped || found.blocks === states) return { ...base, certificate: null };
   context.onProgress(0.95, `certifying ${found.blocks} blocks`);
-  const built = certifyLumping({ chain: model, partition: found.partition });
+  const built = (params.exact ? certifyExactLumping : certifyLumping)({ chain: model, partition: found.partition });
   if (!built.ok) return { ok: false, reason: "the checker refused the lumping the search found", field: "params.chain" };
   return { ...base, certificate: built.certificate };
 }

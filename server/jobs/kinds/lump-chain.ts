@@ -20,6 +20,7 @@ export const lumpChainKind = defineJobKind({
   example: {
     chain: { kind: "markov", labels: ["a", "b", "c"], matrix: [["1/2", "1/4", "1/4"], ["1/3", "1/3", "1/3"], ["1/3", "1/3", "1/3"]] },
     observable: ["a", "other", "other"],
+    exact: false,
   },
   describe: (params) => {
     const p = LumpChainParams.safeParse(params);
@@ -46,7 +47,7 @@ export const lumpChainKind = defineJobKind({
       await createSearchRecord({
         workspaceId: job.workspaceId,
         modelId: model.id,
-        kind: "coarsest-lumping",
+        kind: params.exact ? "coarsest-exact-lumping" : "coarsest-lumping",
         maxBlock: null,
         algorithm: result.coverage.algorithm,
         algorithmVersion: result.coverage.version,

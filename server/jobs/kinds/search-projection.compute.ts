@@ -41,7 +41,8 @@ export function compute(params: SearchProjectionParams, context: ComputeContext)
         break;
       }
       covered.push(block);
-      for (const t of search.targets) rows.push({ rule: params.rule, symmetryClass: -1, block, target: t.target, count: t.count, example: t.example });
+      // T = N for an ECA: every coarse rule is radius 1, an ECA with a rule number
+      for (const t of search.targets) if (t.target !== null) rows.push({ rule: params.rule, symmetryClass: -1, block, target: t.target, count: t.count, example: t.example });
     }
     const coverage = coverageRecord("projections", [params.rule], covered, out.stopped, out.stopped ? `rule ${params.rule}` : null);
     out.coverage.push(coverage);
