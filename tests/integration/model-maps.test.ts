@@ -105,6 +105,6 @@ describe("a watcher's mail about a new map", () => {
     const mail = await t.db.select().from(notificationOutbox).where(eq(notificationOutbox.userId, viewerId)).all();
     expect(mail).toHaveLength(1);
     expect(mail[0].body).toContain("Projection (coarse symbol of each block state, 0…0 first): 0011");
-    expect(mail[0].body).toContain("Certified by The curator");
+    expect(mail[0].body).toContain("By: The curator");
   });
 });
