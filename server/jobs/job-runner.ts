@@ -1,4 +1,3 @@
-import path from "node:path";
 import type { Database } from "@/db/client";
 import type { Job } from "@/db/schema";
 import {
@@ -28,6 +27,8 @@ export type JobRunnerOptions = {
   pollMs?: number;
   /** Time given to a cancelled computation to stop by itself before its thread is terminated. @default 3000 */
   graceMs?: number;
+  /** File URL of a COMPUTES table other than the product's (tests register kinds of their own). */
+  computes?: string;
 };
 
 export type JobRunner = {
@@ -105,7 +106,8 @@ export function createJobRunner(options: JobRunnerOptions): JobRunner {
     const share = kind.persist ? (kind.computeShare ?? 0.5) : 1;
     const progress = progressWriter(db, job.id);
     const outcome: TaskOutcome = await pool.run({
-      module: path.join(process.cwd(), kind.computeModule),
+      compute: kind.compute,
+      computes: options.computes,
       params,
       timeoutMs: kind.timeoutMs,
       cancel: cancel.signal,

@@ -1,4 +1,3 @@
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { jobs } from "@/db/schema";
@@ -10,11 +9,11 @@ import { defineJobKind } from "@/server/jobs/kinds/types";
 import type { JobQueue, JobView } from "@/server/jobs/queue";
 import { AppError } from "@/server/errors";
 import { SleepAndCountParams } from "./jobs-sleep-kind";
+import { TEST_COMPUTES } from "./jobs-computes";
 import { seedPeople, waitFor } from "./jobs-fixtures";
 
-const computeModule = path.relative(process.cwd(), path.join(__dirname, "jobs-sleep-kind.ts"));
-registerJobKind(defineJobKind({ name: "test-sleep-and-count", title: "Count", paramsSchema: SleepAndCountParams, computeModule, timeoutMs: 20_000 }));
-registerJobKind(defineJobKind({ name: "test-short-bound", title: "Count, 600 ms bound", paramsSchema: SleepAndCountParams, computeModule, timeoutMs: 600 }));
+registerJobKind(defineJobKind({ name: "test-sleep-and-count", title: "Count", paramsSchema: SleepAndCountParams, compute: "test-sleep-and-count", timeoutMs: 20_000 }));
+registerJobKind(defineJobKind({ name: "test-short-bound", title: "Count, 600 ms bound", paramsSchema: SleepAndCountParams, compute: "test-sleep-and-count", timeoutMs: 600 }));
 
 let t: TestDatabase;
 let queue: JobQueue;
@@ -26,7 +25,7 @@ beforeAll(async () => {
   t = await createTestDatabase();
   ({ workspace: { id: ws }, people } = await seedPeople(t.db));
   queue = createInProcessQueue({ db: t.db, perUserLimit: 3 });
-  runner = createJobRunner({ db: t.db, workers: 2, memoryMb: 96, pollMs: 100, graceMs: 800 });
+  runner = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 2, memoryMb: 96, pollMs: 100, graceMs: 800 });
   await runner.start();
 });
 
@@ -164,7 +163,7 @@ describe("restart recovery", () => {
     await runner.stop();
     const job = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
     // A runner that died: the row says running, no thread is working on it.
-    const idle = createJobRunner({ db: t.db, workers: 1 });
+    const idle = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 1 });
     expect(await claimJob({ db: t.db, id: job.id })).not.toBeNull();
 
     const first = await idle.recover();
@@ -191,7 +190,7 @@ describe("restart recovery", () => {
     expect(rerun.status).toBe("succeeded");
     expect(rerun.attempts).toBe(2);
     await idle.stop();
-    runner = createJobRunner({ db: t.db, workers: 1 });
+    runner = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 1 });
   });
 
   it("cancels a queued job at once, before any runner claims it", async () => {

@@ -14,7 +14,7 @@ export const lumpChainKind = defineJobKind({
   name: "lump-chain",
   title: "Coarsest lumping",
   paramsSchema: LumpChainParams,
-  computeModule: "server/jobs/kinds/lump-chain.compute.ts",
+  compute: "lump-chain",
   timeoutMs: 20 * 60_000,
   computeShare: 0.7,
   example: {

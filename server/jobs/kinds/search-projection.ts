@@ -7,7 +7,7 @@ export const searchProjectionKind = defineJobKind({
   name: "search-projection",
   title: "Coarse-graining search",
   paramsSchema: SearchProjectionParams,
-  computeModule: "server/jobs/kinds/search-projection.compute.ts",
+  compute: "search-projection",
   timeoutMs: 20 * 60_000,
   computeShare: 0.8,
   example: { rule: 110, minBlock: 2, maxBlock: 4, search: "both" },
