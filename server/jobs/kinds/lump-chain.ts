@@ -17,6 +17,7 @@ export const lumpChainKind = defineJobKind({
   compute: "lump-chain",
   timeoutMs: 20 * 60_000,
   computeShare: 0.7,
+  isSmall: (p) => p.chain.matrix.length <= 32,
   example: {
     chain: { kind: "markov", labels: ["a", "b", "c"], matrix: [["1/2", "1/4", "1/4"], ["1/3", "1/3", "1/3"], ["1/3", "1/3", "1/3"]] },
     observable: ["a", "other", "other"],

@@ -41,6 +41,11 @@ export type JobKind<P = unknown> = {
   persist?: (input: PersistInput<P>) => Promise<unknown>;
   /** One line for the jobs list, from the params ("rule 110, blocks 2–3"). Gets stored params, so it checks them. */
   describe?: (params: unknown) => string;
+  /**
+   * Whether a job with these (validated) params is small: expected to finish within seconds. Small
+   * jobs have a worker that large ones may not take (server/jobs/fairness.ts). @default never small
+   */
+  isSmall?: (params: P) => boolean;
   /** Parameters that the "start a job" form offers first. */
   example?: P;
 };

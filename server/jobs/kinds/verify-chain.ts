@@ -18,6 +18,7 @@ export const verifyChainKind = defineJobKind({
   compute: "verify-chain",
   timeoutMs: 10 * 60_000,
   computeShare: 0.7,
+  isSmall: (p) => p.certificates.length <= 4,
   example: { name: "my chain", certificates: [], save: true },
   describe: (params) => {
     const p = VerifyChainParams.safeParse(params);

@@ -1,0 +1,3 @@
+ALTER TABLE `jobs` ADD `lease_owner` text;--> statement-breakpoint
+ALTER TABLE `jobs` ADD `lease_expires_at` integer;--> statement-breakpoint
+ALTER TABLE `jobs` ADD `lane` text DEFAULT 'large' NOT NULL;
