@@ -1,4 +1,4 @@
-/* global AbortController, AbortSignal */
+/* global AbortController, AbortSignal, URL */
 // The job worker thread. A plain ES module so that it loads the same way under `next start`,
 // vitest, tsx and plain node: it enables TypeScript through tsx's scoped loader and imports the
 // static table of compute steps (kinds/computes.ts), which depends on lib/ alone (no database, no Next).
