@@ -1,4 +1,4 @@
-import { and, asc, desc, eq, inArray, isNull, lt, or, sql } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNull, lt, or, sql } from "drizzle-orm";
 import { jobs, type Job, type JOB_LANES } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
@@ -38,6 +38,18 @@ export async function createJobWithinLimit(
       .returning();
     return { ok: true as const, job };
   }));
+}
+
+/** Queued or running jobs of a workspace and of one person in it (BullMQ priorities are made from them). */
+export async function countActiveJobs(
+  { db = getDatabase(), ...input }: { db?: Executor } & { workspaceId: string; ownerId: string | null },
+): Promise<{ workspace: number; owner: number }> {
+  const active = inArray(jobs.status, ACTIVE_JOB_STATUSES);
+  const [[workspace], [owner]] = await Promise.all([
+    db.select({ n: count() }).from(jobs).where(and(eq(jobs.workspaceId, input.workspaceId), active)),
+    db.select({ n: count() }).from(jobs).where(and(eq(jobs.ownerId, input.ownerId ?? ""), active)),
+  ]);
+  return { workspace: workspace.n, owner: owner.n };
 }
 
 export async function getJob({ db = getDatabase(), ...input }: { db?: Executor } & { id: string; workspaceId?: string }): Promise<Job | null> {
@@ -225,6 +237,17 @@ export function lapsedJobError(attempts: number): string {
   return `its worker stopped ${attempts} times before the job finished (lease expired); not retried again`;
 }
 export const REQUEUED_ITEM = "re-queued: its worker stopped before the job finished";
+
+/** Fails one running job whose lease lapsed (its worker died and it is not to be retried); null if it was not. */
+export async function failLapsedJob({ db = getDatabase(), ...input }: { db?: Executor } & { id: string; now?: Date }): Promise<Job | null> {
+  const now = input.now ?? new Date();
+  const [row] = await db
+    .update(jobs)
+    .set({ status: "failed", finishedAt: now, error: sql`'its worker stopped ' || ${jobs.attempts} || ' times before the job finished (lease expired); not retried again'`, leaseOwner: null, leaseExpiresAt: null })
+    .where(and(eq(jobs.id, input.id), eq(jobs.status, "running"), leaseLapsed(now)))
+    .returning();
+  return row ?? null;
+}
 
 /**
  * Running jobs whose lease lapsed belong to a runner that died (or stalled past its lease): a job
