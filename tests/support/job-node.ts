@@ -13,6 +13,9 @@ import { startBullmqWorker } from "@/server/jobs/bullmq-worker";
 import { createJobRunner } from "@/server/jobs/job-runner";
 import { registerJobKind } from "@/server/jobs/kinds/registry";
 import { defineJobKind } from "@/server/jobs/kinds/types";
+import { createCertifiedEdge } from "@/db/queries/maps";
+import { requireHolds } from "@/server/atlas/outcome";
+import { runVerification } from "@/server/atlas/pool";
 import { submitBuild } from "@/server/atlas/submit";
 import { SleepAndCountParams } from "@/tests/integration/jobs-sleep-kind";
 import { TEST_COMPUTES } from "@/tests/integration/jobs-computes";
@@ -55,12 +58,41 @@ async function work(): Promise<void> {
   console.log("ready 0");
 }
 
+/**
+ * Certified writes through submitBuild; write number WRITER_PAUSE_AT goes the same way (server
+ * check, then createCertifiedEdge) but stops for a minute inside its transaction, after the map
+ * row and before the audit event and mail, and says "inside <i>": the test kills it there.
+ */
 async function write(): Promise<void> {
   const workspaceId = process.env.WRITER_WORKSPACE ?? "";
   const userId = process.env.WRITER_USER ?? "";
+  const pauseAt = Number(process.env.WRITER_PAUSE_AT ?? -1);
   console.log("ready 0");
   for (let i = 0; ; i++) {
     console.log(`begin ${i}`);
+    if (i === pauseAt) {
+      const verified = requireHolds(await runVerification({ op: "build", build: lumpableBuild(i) }), "build");
+      await createCertifiedEdge({
+        workspaceId,
+        userId,
+        certificate: {
+          address: verified.address,
+          kind: verified.kind,
+          formatVersion: verified.formatVersion,
+          body: verified.body,
+          checkerVersion: verified.checkerVersion,
+          verifiedAt: new Date(),
+        },
+        source: verified.source,
+        target: verified.target,
+        map: { kind: verified.kind, block: verified.block, steps: verified.steps, summary: verified.text },
+        onStep: async (step) => {
+          if (step !== "map") return;
+          console.log(`inside ${i}`);
+          await new Promise((r) => setTimeout(r, 60_000));
+        },
+      });
+    }
     const stored = await submitBuild({ workspaceId, userId, build: lumpableBuild(i) });
     console.log(`ok ${i} ${stored.status}`);
   }
