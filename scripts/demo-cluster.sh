@@ -15,12 +15,7 @@ export JOB_QUEUE=bullmq
 export MAIL_OPERATORS="${MAIL_OPERATORS:-ines@kestrel-lab.example}"
 export NEXT_TELEMETRY_DISABLED=1
 
-bash scripts/ensure-deps.sh
-if ! command -v redis-server >/dev/null; then
-  echo "== installing Debian's redis-server"
-  if [ "$(id -u)" = "0" ]; then SUDO=""; else SUDO="sudo"; fi
-  $SUDO apt-get update -qq && $SUDO env DEBIAN_FRONTEND=noninteractive apt-get install -y -qq redis-server
-fi
+bash scripts/ensure-deps.sh --redis
 
 echo "== migrating ${DATABASE_URL:-file:data/squarely.db}"
 npm run --silent db:migrate
@@ -47,7 +42,7 @@ trap stop_all INT TERM EXIT
 set -m
 if [ "$OWN_REDIS" != "no" ]; then
   echo "== starting redis-server on 127.0.0.1:$REDIS_PORT"
-  redis-server --port "$REDIS_PORT" --bind 127.0.0.1 --dir data/cluster --save "" --appendonly no >data/cluster/redis.log 2>&1 &
+  /usr/bin/redis-server --port "$REDIS_PORT" --bind 127.0.0.1 --dir data/cluster --save "" --appendonly no >data/cluster/redis.log 2>&1 &
   pids+=($!)
 fi
 echo "== starting app processes on ports $PORT and $PORT_B, and two job workers"
