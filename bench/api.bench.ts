@@ -103,11 +103,11 @@ async function load(url: string) {
   return { viewer, secret, modelIds };
 }
 
-/** The read mix: each request picks one endpoint at random, with random ids. */
-function readMix(modelIds: string[]): () => string {
-  const pick = random(7);
+/** The read endpoints of the mix, each with random ids. */
+function readEndpoints(modelIds: string[], seed: number): (() => string)[] {
+  const pick = random(seed);
   const model = () => modelIds[Math.floor(pick() * modelIds.length)];
-  const endpoints: (() => string)[] = [
+  return [
     () => `/api/models/${model()}/maps?direction=${pick() < 0.5 ? "from" : "to"}&limit=50`,
     () => `/api/models/${model()}/maps?direction=from&limit=50`,
     () => `/api/maps/e${Math.floor(pick() * EDGES)}`,
@@ -120,7 +120,32 @@ function readMix(modelIds: string[]): () => string {
     () => `/api/jobs?limit=20`,
     () => `/api/certificates/schema`,
   ];
+}
+
+/** The read mix: each request picks one endpoint at random. */
+function readMix(modelIds: string[]): () => string {
+  const pick = random(7);
+  const endpoints = readEndpoints(modelIds, 8);
   return () => endpoints[Math.floor(pick() * endpoints.length)]();
+}
+
+/** One connection, one request at a time: each endpoint's own latency (median and max of `n`). */
+async function timeEachEndpoint(port: number, modelIds: string[], headers: Record<string, string>, n = 15): Promise<string> {
+  const rows: string[] = [];
+  for (const endpoint of readEndpoints(modelIds, 9)) {
+    const ms: number[] = [];
+    let example = "";
+    for (let i = 0; i < n; i++) {
+      example = endpoint();
+      const t0 = performance.now();
+      const res = await fetch(`http://127.0.0.1:${port}${example}`, { headers });
+      await res.arrayBuffer();
+      ms.push(performance.now() - t0);
+    }
+    ms.sort((a, b) => a - b);
+    rows.push(`  ${percentile(ms, 50).toFixed(1).padStart(7)} ms median, ${ms[ms.length - 1].toFixed(1).padStart(7)} ms max  ${example.replace(/[?].*$/, "?…")}`);
+  }
+  return rows.join("\n");
 }
 
 function percentile(sorted: number[], p: number): number {
@@ -223,6 +248,7 @@ export async function main(args: string[]): Promise<void> {
     await hammer(server.port, 2, () => "/api/health");
     await hammer(server.port, 3, mix, token);
     await hammer(server.port, 3, mix, cookie);
+    if (profile) console.log(`each endpoint alone (one connection, token):\n${await timeEachEndpoint(server.port, modelIds, token)}`);
     const base = await hammer(server.port, seconds, () => "/api/health");
     const viaToken = await hammer(server.port, seconds, mix, token);
     const viaSession = await hammer(server.port, seconds, mix, cookie);

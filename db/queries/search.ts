@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, desc, eq, gt, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, desc, eq, gt, inArray, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import { maps, models, searchRecords, type Model, type SearchRecord } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
@@ -88,6 +88,29 @@ async function searchModels({
 const source = alias(models, "s");
 const target = alias(models, "t");
 
+/** Beyond this many trigram hits a term is common, and the scan in page order finds a page sooner. */
+const TRIGRAM_CANDIDATES = 2000;
+
+/**
+ * The maps (by rowid) whose summary, and the models of the workspace whose name, contain `q`, from
+ * the trigram indexes (drizzle/0002_search-trigrams.sql): a few milliseconds where the LIKE scan
+ * of every map of a large atlas took hundreds. Null when the index cannot answer (fewer than three
+ * characters, or a LIKE wildcard or escape in `q`, which the index does not serve) or the term is
+ * common; the caller then scans.
+ */
+async function trigramCandidates(db: Executor, workspaceId: string, q: string): Promise<{ mapRowids: number[]; modelIds: string[] } | null> {
+  if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
+  const pattern = `%${q}%`;
+  const mapRows = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern} LIMIT ${TRIGRAM_CANDIDATES + 1}`);
+  if (mapRows.length > TRIGRAM_CANDIDATES) return null;
+  const modelRows = await db.all<{ id: string }>(
+    sql`SELECT m.id AS id FROM models_trigrams f JOIN models m ON m.rowid = f.rowid
+        WHERE f.name LIKE ${pattern} AND m.workspace_id = ${workspaceId} LIMIT ${TRIGRAM_CANDIDATES + 1}`,
+  );
+  if (modelRows.length > TRIGRAM_CANDIDATES) return null;
+  return { mapRowids: mapRows.map((r) => Number(r.r)), modelIds: modelRows.map((r) => r.id) };
+}
+
 async function searchMaps({
   db = getDatabase(),
   workspaceId,
@@ -103,18 +126,22 @@ async function searchMaps({
   cursor,
 }: AtlasSearch): Promise<AtlasSearchResult> {
   return withDb("searching maps", async () => {
-    const c: SQL[] = [eq(maps.workspaceId, workspaceId)];
+    const candidates = q && !q.startsWith("sha256:") ? await trigramCandidates(db, workspaceId, q) : null;
+    if (candidates && candidates.mapRowids.length === 0 && candidates.modelIds.length === 0) return { target: "maps", items: [], nextCursor: null };
+    // Without candidates the workspace condition is kept off its index (unary +), so that SQLite
+    // walks the maps in page order and stops at a page of matches instead of sorting them all.
+    const c: SQL[] = [candidates || !q ? eq(maps.workspaceId, workspaceId) : sql`+${maps.workspaceId} = ${workspaceId}`];
     if (!includeRetracted) c.push(eq(maps.status, "certified"));
     if (q) {
-      c.push(
-        q.startsWith("sha256:")
-          ? eq(maps.certificateAddress, q)
-          : or(
-              likeEscaped(sql`${maps.summary}`, q),
-              likeEscaped(sql`${source.name}`, q),
-              likeEscaped(sql`${target.name}`, q),
-            )!,
-      );
+      const text = or(likeEscaped(sql`${maps.summary}`, q), likeEscaped(sql`${source.name}`, q), likeEscaped(sql`${target.name}`, q))!;
+      const near = candidates
+        ? or(
+            inArray(sql`${maps}.rowid`, candidates.mapRowids),
+            inArray(maps.sourceModelId, candidates.modelIds),
+            inArray(maps.targetModelId, candidates.modelIds),
+          )!
+        : null;
+      c.push(q.startsWith("sha256:") ? eq(maps.certificateAddress, q) : near ? and(near, text)! : text);
     }
     if (rule !== undefined) c.push(eq(source.rule, rule));
     if (symmetryClass !== undefined) c.push(eq(source.symmetryClass, symmetryClass));
