@@ -16,7 +16,7 @@ beforeAll(async () => {
   setDatabase(t.db);
   const statements: { sql: string; args: (string | number)[] }[] = [];
   // One write transaction for all rows (a commit per row is slow on a busy disk).
-  const c = { execute: async (s: string | { sql: string; args: (string | number)[] }) => void statements.push(typeof s === "string" ? { sql: s, args: [] } : s) };
+  const c = { execute: async (s: string | { sql: string; args?: (string | number)[] }) => void statements.push(typeof s === "string" ? { sql: s, args: [] } : { sql: s.sql, args: s.args ?? [] }) };
   for (const ws of ["lab", "elsewhere"]) await c.execute({ sql: "INSERT INTO workspaces (id, slug, name) VALUES (?, ?, ?)", args: [ws, ws, ws] });
   for (let i = 0; i < 60; i++) {
     // Model 7's name is not in any summary: it was renamed after its maps were written.
