@@ -13,6 +13,7 @@
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { createHash, randomBytes } from "node:crypto";
+import { get as httpGet } from "node:http";
 import { existsSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
@@ -48,7 +49,7 @@ function run(cmd: string, args: string[], env: Record<string, string>): Promise<
 }
 
 /** The demo viewer of the seeded workspace, a token of theirs, and 100,000 maps in that workspace. */
-async function load(url: string) {
+export async function load(url: string) {
   const db = createDatabase(url);
   const c = db.$client;
   const viewer = (
@@ -129,6 +130,17 @@ function readMix(modelIds: string[]): () => string {
   return () => endpoints[Math.floor(pick() * endpoints.length)]();
 }
 
+/** One GET on a fresh connection (no keep-alive race with the server closing an idle socket). */
+function getOnce(port: number, path: string, headers: Record<string, string>): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const req = httpGet({ host: "127.0.0.1", port, path, headers, agent: false }, (res) => {
+      res.resume();
+      res.on("end", () => resolve());
+    });
+    req.on("error", reject);
+  });
+}
+
 /** One connection, one request at a time: each endpoint's own latency (median and max of `n`). */
 async function timeEachEndpoint(port: number, modelIds: string[], headers: Record<string, string>, n = 15): Promise<string> {
   const rows: string[] = [];
@@ -138,8 +150,7 @@ async function timeEachEndpoint(port: number, modelIds: string[], headers: Recor
     for (let i = 0; i < n; i++) {
       example = endpoint();
       const t0 = performance.now();
-      const res = await fetch(`http://127.0.0.1:${port}${example}`, { headers });
-      await res.arrayBuffer();
+      await getOnce(port, example, headers);
       ms.push(performance.now() - t0);
     }
     ms.sort((a, b) => a - b);

@@ -88,27 +88,32 @@ async function searchModels({
 const source = alias(models, "s");
 const target = alias(models, "t");
 
-/** Beyond this many trigram hits a term is common, and the scan in page order finds a page sooner. */
-const TRIGRAM_CANDIDATES = 2000;
+/** Beyond this many candidate maps a term is common, and the plain search is the faster one. */
+const TRIGRAM_CANDIDATES = 4000;
 
 /**
- * The maps (by rowid) whose summary, and the models of the workspace whose name, contain `q`, from
- * the trigram indexes (drizzle/0002_search-trigrams.sql): a few milliseconds where the LIKE scan
- * of every map of a large atlas took hundreds. Null when the index cannot answer (fewer than three
- * characters, or a LIKE wildcard or escape in `q`, which the index does not serve) or the term is
- * common; the caller then scans.
+ * The rowids of the maps whose summary, or either end's name, contains `q`, from the trigram
+ * indexes (drizzle/0002_search-trigrams.sql): a few milliseconds where the LIKE scan of every map
+ * of a large atlas took hundreds. Null when the index cannot answer (fewer than three characters,
+ * or a LIKE wildcard or escape in `q`, which the index does not serve) or the term is common.
  */
-async function trigramCandidates(db: Executor, workspaceId: string, q: string): Promise<{ mapRowids: number[]; modelIds: string[] } | null> {
+async function trigramCandidates(db: Executor, workspaceId: string, q: string): Promise<number[] | null> {
   if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
   const pattern = `%${q}%`;
-  const mapRows = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern} LIMIT ${TRIGRAM_CANDIDATES + 1}`);
-  if (mapRows.length > TRIGRAM_CANDIDATES) return null;
-  const modelRows = await db.all<{ id: string }>(
-    sql`SELECT m.id AS id FROM models_trigrams f JOIN models m ON m.rowid = f.rowid
-        WHERE f.name LIKE ${pattern} AND m.workspace_id = ${workspaceId} LIMIT ${TRIGRAM_CANDIDATES + 1}`,
+  const cap = TRIGRAM_CANDIDATES + 1;
+  const bySummary = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern} LIMIT ${cap}`);
+  if (bySummary.length > TRIGRAM_CANDIDATES) return null;
+  // Subqueries, not joins: joined, SQLite walks the workspace's rows and probes the index per row.
+  const byName = await db.all<{ r: number }>(
+    sql`SELECT rowid AS r FROM maps WHERE workspace_id = ${workspaceId} AND (
+          source_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
+            AND rowid IN (SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${cap}))
+          OR target_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
+            AND rowid IN (SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${cap})))
+        LIMIT ${cap}`,
   );
-  if (modelRows.length > TRIGRAM_CANDIDATES) return null;
-  return { mapRowids: mapRows.map((r) => Number(r.r)), modelIds: modelRows.map((r) => r.id) };
+  const rowids = new Set([...bySummary, ...byName].map((row) => Number(row.r)));
+  return rowids.size > TRIGRAM_CANDIDATES ? null : [...rowids];
 }
 
 async function searchMaps({
@@ -127,21 +132,16 @@ async function searchMaps({
 }: AtlasSearch): Promise<AtlasSearchResult> {
   return withDb("searching maps", async () => {
     const candidates = q && !q.startsWith("sha256:") ? await trigramCandidates(db, workspaceId, q) : null;
-    if (candidates && candidates.mapRowids.length === 0 && candidates.modelIds.length === 0) return { target: "maps", items: [], nextCursor: null };
-    // Without candidates the workspace condition is kept off its index (unary +), so that SQLite
-    // walks the maps in page order and stops at a page of matches instead of sorting them all.
-    const c: SQL[] = [candidates || !q ? eq(maps.workspaceId, workspaceId) : sql`+${maps.workspaceId} = ${workspaceId}`];
+    if (candidates && candidates.length === 0) return { target: "maps", items: [], nextCursor: null };
+    const c: SQL[] = [eq(maps.workspaceId, workspaceId)];
     if (!includeRetracted) c.push(eq(maps.status, "certified"));
+    if (candidates) c.push(inArray(sql`${maps}.rowid`, candidates));
     if (q) {
-      const text = or(likeEscaped(sql`${maps.summary}`, q), likeEscaped(sql`${source.name}`, q), likeEscaped(sql`${target.name}`, q))!;
-      const near = candidates
-        ? or(
-            inArray(sql`${maps}.rowid`, candidates.mapRowids),
-            inArray(maps.sourceModelId, candidates.modelIds),
-            inArray(maps.targetModelId, candidates.modelIds),
-          )!
-        : null;
-      c.push(q.startsWith("sha256:") ? eq(maps.certificateAddress, q) : near ? and(near, text)! : text);
+      c.push(
+        q.startsWith("sha256:")
+          ? eq(maps.certificateAddress, q)
+          : or(likeEscaped(sql`${maps.summary}`, q), likeEscaped(sql`${source.name}`, q), likeEscaped(sql`${target.name}`, q))!,
+      );
     }
     if (rule !== undefined) c.push(eq(source.rule, rule));
     if (symmetryClass !== undefined) c.push(eq(source.symmetryClass, symmetryClass));
