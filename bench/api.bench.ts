@@ -221,7 +221,7 @@ async function startServer(url: string, secret: string, profileDir: string | nul
   // SIGINT lets node write the CPU profile on the way out.
   const stop = async () => {
     if (server.exitCode === null && server.pid) process.kill(-server.pid, "SIGINT");
-    await Promise.race([exited, new Promise((r) => setTimeout(r, 15_000))]);
+    await Promise.race([exited, new Promise((r) => setTimeout(r, 60_000))]);
   };
   return { port, stop };
 }
@@ -270,8 +270,8 @@ export async function main(args: string[]): Promise<void> {
     await server.stop();
     server = null;
     if (profileDir) {
-      const file = readdirSync(profileDir).find((f) => f.endsWith(".cpuprofile"));
-      if (file) console.log(summariseCpuProfile(join(profileDir, file)));
+      const file = existsSync(profileDir) ? readdirSync(profileDir).find((f) => f.endsWith(".cpuprofile")) : undefined;
+      console.log(file ? summariseCpuProfile(join(profileDir, file)) : "no CPU profile was written (the server did not exit in time)");
     }
   } finally {
     await server?.stop();
