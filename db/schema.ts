@@ -98,6 +98,8 @@ export const models = sqliteTable(
     uniqueIndex("models_workspace_address_uq").on(t.workspaceId, t.address),
     index("models_workspace_kind_idx").on(t.workspaceId, t.kind),
     index("models_workspace_rule_idx").on(t.workspaceId, t.rule),
+    // Model lists and searches page by (name, id): walked in order instead of sorting the workspace.
+    index("models_workspace_name_idx").on(t.workspaceId, t.name, t.id),
   ],
 );
 export type Model = InferSelectModel<typeof models>;

@@ -63,6 +63,9 @@ async function searchModels({
   return withDb("searching models", async () => {
     const c: SQL[] = [eq(models.workspaceId, workspaceId)];
     if (q) c.push(q.startsWith("sha256:") ? eq(models.address, q) : or(likeEscaped(sql`${models.name}`, q), likeEscaped(sql`${models.description}`, q))!);
+    // Descriptions are not in the trigram index: only a term that no description holds may use it.
+    const byName = q && !q.startsWith("sha256:") ? await modelNameCandidates(db, workspaceId, q) : null;
+    if (byName) c.push(sql`${models}.rowid IN (SELECT value FROM json_each(${JSON.stringify(byName)}))`);
     if (rule !== undefined) c.push(eq(models.rule, rule));
     if (symmetryClass !== undefined) c.push(eq(models.symmetryClass, symmetryClass));
     if (tag) c.push(hasTag(sql`${models.tags}`, tag));
@@ -83,6 +86,22 @@ async function searchModels({
     const last = items[items.length - 1];
     return { target: "models", items, nextCursor: rows.length > limit && last ? encodeCursor([last.name, last.id]) : null };
   });
+}
+
+/**
+ * Rowids of the workspace's models whose name contains `q`, from the trigram index, when no
+ * model's description could match instead (descriptions are few and short: one LIKE over them).
+ * Null when the index cannot answer or the term is common.
+ */
+async function modelNameCandidates(db: Executor, workspaceId: string, q: string): Promise<number[] | null> {
+  if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
+  const pattern = `%${q}%`;
+  const [described] = await db.all<{ n: number }>(
+    sql`SELECT count(*) AS n FROM models WHERE workspace_id = ${workspaceId} AND description != '' AND description LIKE ${pattern}`,
+  );
+  if (Number(described.n) > 0) return null;
+  const rows = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${TRIGRAM_CANDIDATES + 1}`);
+  return rows.length > TRIGRAM_CANDIDATES ? null : rows.map((row) => Number(row.r));
 }
 
 const source = alias(models, "s");

@@ -27,6 +27,7 @@ beforeAll(async () => {
     });
   }
   await c.execute({ sql: "INSERT INTO models (id, workspace_id, address, kind, name, canonical) VALUES ('x0', 'elsewhere', 'sha256:x', 'markov', 'Chain 5', '{}')" });
+  await c.execute({ sql: "INSERT INTO models (id, workspace_id, address, kind, name, description, canonical) VALUES ('d0', 'lab', 'sha256:d', 'markov', 'Dingo', 'seen near Chain 13 and a Quokka', '{}')" });
   for (let i = 0; i < 300; i++) {
     const [s, tt] = [(i * 7) % 60, (i * 13 + 1) % 60];
     const row = { id: `e${String(i).padStart(4, "0")}`, ws: "lab", s, t: tt, summary: `Chain ${s} → Chain ${tt}${i % 50 === 0 ? " (50% done)" : ""}` };
@@ -88,5 +89,24 @@ describe("searching maps by part of a name or summary", () => {
     const first = await searchAtlas({ workspaceId: "lab", target: "maps", q: "Chain 1", limit: 5 });
     const second = await searchAtlas({ workspaceId: "lab", target: "maps", q: "Chain 1", limit: 5, cursor: first.nextCursor });
     expect([...first.items, ...second.items].map((m) => m.id)).toEqual(expected("Chain 1", 10));
+  });
+});
+
+describe("searching models by part of a name or description", () => {
+  /** The lab's models whose name or description contains q (any case), by name then id. */
+  function expectedModels(q: string): string[] {
+    const all = [...names.entries()].map(([i, name]) => ({ id: `m${i}`, name, description: "" }));
+    all.push({ id: "d0", name: "Dingo", description: "seen near Chain 13 and a Quokka" });
+    const has = (text: string) => text.toLowerCase().includes(q.toLowerCase());
+    return all
+      .filter((m) => has(m.name) || has(m.description))
+      .sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : a.id < b.id ? -1 : 1))
+      .map((m) => m.id)
+      .slice(0, 50);
+  }
+
+  it.each(["Chain 13", "chain 4", "Wombat", "Quokka", "Dingo", "in", "%", "no such text"])("lists the same models as a plain filter for %j", async (q) => {
+    const page = await searchAtlas({ workspaceId: "lab", target: "models", q, limit: 50 });
+    expect(page.items.map((m) => m.id)).toEqual(expectedModels(q));
   });
 });

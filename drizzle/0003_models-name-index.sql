@@ -1,0 +1,1 @@
+CREATE INDEX `models_workspace_name_idx` ON `models` (`workspace_id`,`name`,`id`);
