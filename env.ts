@@ -36,6 +36,12 @@ const EnvSchema = z.object({
   MAIL_CATCHER_DIR: z.string().min(1).default("data/mail"),
   /** Worker threads that run background jobs inside the app process. */
   JOB_WORKERS: z.coerce.number().int().min(0).max(16).default(2),
+  /** Where jobs are queued: the jobs table, run by each app process's own workers; or BullMQ over Redis, run by `npm run jobs:worker` processes. */
+  JOB_QUEUE: z.enum(["in-process", "bullmq"]).default("in-process"),
+  /** Redis for JOB_QUEUE=bullmq (redis://host:port). */
+  REDIS_URL: z.string().url().optional(),
+  /** How long a job's claim holds without its runner's heartbeat; a dead runner's job is taken over after it. */
+  JOB_LEASE_MS: z.coerce.number().int().min(1_000).max(600_000).default(30_000),
   /** Jobs one user may have running or queued at once. */
   JOBS_PER_USER: z.coerce.number().int().min(1).max(100).default(4),
   /** Time bound of one server-side certificate check (the worker thread is terminated after it). */

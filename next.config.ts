@@ -30,7 +30,7 @@ export const SECURITY_HEADERS = [
 
 const nextConfig: NextConfig = {
   // Native and Node-only packages stay outside the server bundle.
-  serverExternalPackages: ["@libsql/client", "libsql", "nodemailer", "tinypool", "smtp-server", "mailparser"],
+  serverExternalPackages: ["@libsql/client", "libsql", "nodemailer", "tinypool", "smtp-server", "mailparser", "bullmq", "ioredis"],
   // forbidden() from next/navigation: refusals render app/forbidden.tsx with HTTP status 403.
   experimental: { authInterrupts: true },
   // The framework's name tells a prober which exploits to try and tells a user nothing.

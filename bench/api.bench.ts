@@ -1,26 +1,33 @@
 /**
- * `npm run bench -- api [--quick]`: the atlas API under load. Loads 100,000 certified maps among
- * 20,000 models into a fresh libSQL file, then
- *  - autocannon, 50 connections on localhost for 20 s (3 s with --quick), against the
- *    "coarse-grains to/from" read GET /api/models/{id}/maps (random model, random direction, Bearer
- *    token): requests/s, p95 latency, errors — against a constant-JSON baseline on the same server;
- *  - depth-4 path queries (recursive CTE) between random pairs, against a point lookup.
- * The handler runs in a plain node http server (a child process), not under `next start`: building
- * the app inside a benchmark is impractical on a shared machine. Targets: p95 < 50 ms, no errors,
- * depth-4 path < 200 ms.
+ * `npm run bench -- api [--quick] [--profile]`: the atlas API under load, on the real server.
+ * Seeds the demo scenario (db/seed.ts) into a fresh libSQL file, adds 100,000 certified maps among
+ * 20,000 models to the demo workspace, starts `next start` from the existing production build
+ * (run `npx next build` first), and drives it with autocannon at 50 connections:
+ *  - baseline: GET /api/health, a constant JSON route on the same server (no auth, no database);
+ *  - a mix of the API's read endpoints (coarse-grains to/from, one map, one model, model list,
+ *    search of maps and models, paths, chains, jobs, certificate schema) as the demo viewer, once
+ *    with a personal API token and once with a session cookie.
+ * Prints requests/s, p50, p95, p99 and errors of each, and their ratios to the baseline. Target:
+ * p95 < 50 ms and no errors on a quiet machine. --profile writes a V8 CPU profile of the server
+ * (node --cpu-prof) and prints where its time went.
  */
 import { spawn, type ChildProcess } from "node:child_process";
 import { createHash, randomBytes } from "node:crypto";
-import { mkdtempSync, rmSync } from "node:fs";
+import { get as httpGet } from "node:http";
+import { existsSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import autocannon from "autocannon";
+import { encode } from "next-auth/jwt";
 import { createDatabase } from "@/db/client";
 import { migrateDatabase } from "@/db/migrate";
+import { summariseCpuProfile } from "./cpu-profile";
 
 const EDGES = 100_000;
 const MODELS = 20_000;
 const CONNECTIONS = 50;
+const ROOT = new URL("../", import.meta.url).pathname;
+const SESSION_COOKIE = "authjs.session-token";
 
 /** mulberry32 (common practice): a reproducible graph. */
 function random(seed: number): () => number {
@@ -34,18 +41,27 @@ function random(seed: number): () => number {
   };
 }
 
+function run(cmd: string, args: string[], env: Record<string, string>): Promise<void> {
+  return new Promise((resolve, reject) => {
+    const proc = spawn(cmd, args, { cwd: ROOT, env: { ...process.env, ...env }, stdio: ["ignore", "ignore", "inherit"] });
+    proc.on("exit", (code) => (code === 0 ? resolve() : reject(new Error(`${cmd} ${args.join(" ")} exited with ${code}`))));
+  });
+}
+
+/** The demo viewer of the seeded workspace, a token of theirs, and 100,000 maps in that workspace. */
 export async function load(url: string) {
   const db = createDatabase(url);
   const c = db.$client;
-  const ws = "bench-ws";
-  const user = "bench-user";
-  await c.execute({ sql: "INSERT INTO workspaces (id, slug, name) VALUES (?, 'bench', 'Bench')", args: [ws] });
-  await c.execute({ sql: "INSERT INTO users (id, email, name) VALUES (?, 'bench@bench.test', 'Bench')", args: [user] });
-  await c.execute({ sql: "INSERT INTO memberships (workspace_id, user_id, role) VALUES (?, ?, 'viewer')", args: [ws, user] });
+  const viewer = (
+    await c.execute(
+      "SELECT u.id, u.email, u.name, m.workspace_id AS ws FROM users u JOIN memberships m ON m.user_id = u.id WHERE m.role = 'viewer' ORDER BY u.email LIMIT 1",
+    )
+  ).rows[0] as unknown as { id: string; email: string; name: string; ws: string };
+  const ws = viewer.ws;
   const secret = `sqt_${randomBytes(32).toString("base64url")}`;
   await c.execute({
     sql: "INSERT INTO api_tokens (id, user_id, workspace_id, name, token_hash, prefix, role) VALUES ('bench-token', ?, ?, 'bench', ?, 'sqt_bench', 'viewer')",
-    args: [user, ws, createHash("sha256").update(secret).digest("hex")],
+    args: [viewer.id, ws, createHash("sha256").update(secret).digest("hex")],
   });
   const modelIds = Array.from({ length: MODELS }, (_, i) => `m${i}`);
   // Rows are generated inside SQLite (a recursive counter): 300,000 inserts in a few statements.
@@ -85,34 +101,71 @@ export async function load(url: string) {
   });
   await c.execute("ANALYZE");
   c.close();
-  return { ws, secret, modelIds };
+  return { viewer, secret, modelIds };
 }
 
-function child(args: string[], url: string): ChildProcess {
-  return spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "bench/api-server.ts", ...args], {
-    env: { ...process.env, DATABASE_URL: url, NODE_ENV: "production", MAIL_CATCHER: "off" },
-    stdio: ["ignore", "pipe", "inherit"],
-  });
+/** The read endpoints of the mix, each with random ids. */
+function readEndpoints(modelIds: string[], seed: number): (() => string)[] {
+  const pick = random(seed);
+  const model = () => modelIds[Math.floor(pick() * modelIds.length)];
+  return [
+    () => `/api/models/${model()}/maps?direction=${pick() < 0.5 ? "from" : "to"}&limit=50`,
+    () => `/api/models/${model()}/maps?direction=from&limit=50`,
+    () => `/api/maps/e${Math.floor(pick() * EDGES)}`,
+    () => `/api/models/${model()}`,
+    () => `/api/models?limit=20`,
+    () => `/api/search?target=maps&q=Chain%20${Math.floor(pick() * 2000)}&limit=20`,
+    () => `/api/search?target=models&q=Chain%20${Math.floor(pick() * 2000)}&limit=20`,
+    () => `/api/paths?from=${model()}&to=${model()}&maxDepth=3`,
+    () => `/api/chains?limit=20`,
+    () => `/api/jobs?limit=20`,
+    () => `/api/certificates/schema`,
+  ];
 }
 
-function firstJson(proc: ChildProcess): Promise<Record<string, unknown>> {
+/** The read mix: each request picks one endpoint at random. */
+function readMix(modelIds: string[]): () => string {
+  const pick = random(7);
+  const endpoints = readEndpoints(modelIds, 8);
+  return () => endpoints[Math.floor(pick() * endpoints.length)]();
+}
+
+/** One GET on a fresh connection (no keep-alive race with the server closing an idle socket). */
+function getOnce(port: number, path: string, headers: Record<string, string>): Promise<void> {
   return new Promise((resolve, reject) => {
-    let buffer = "";
-    proc.stdout!.on("data", (chunk: Buffer) => {
-      buffer += chunk.toString();
-      const line = buffer.split("\n").find((l) => l.trim().startsWith("{"));
-      if (line) resolve(JSON.parse(line) as Record<string, unknown>);
+    const req = httpGet({ host: "127.0.0.1", port, path, headers, agent: false }, (res) => {
+      res.resume();
+      res.on("end", () => resolve());
     });
-    proc.on("exit", (code) => reject(new Error(`child exited with ${code}`)));
+    req.on("error", reject);
   });
 }
 
-function percentile(values: number[], p: number): number {
-  const sorted = [...values].sort((a, b) => a - b);
+/** One connection, one request at a time: each endpoint's own latency (median and max of `n`). */
+async function timeEachEndpoint(port: number, modelIds: string[], headers: Record<string, string>, n = 15): Promise<string> {
+  const rows: string[] = [];
+  for (const endpoint of readEndpoints(modelIds, 9)) {
+    const ms: number[] = [];
+    let example = "";
+    for (let i = 0; i < n; i++) {
+      example = endpoint();
+      const t0 = performance.now();
+      await getOnce(port, example, headers);
+      ms.push(performance.now() - t0);
+    }
+    ms.sort((a, b) => a - b);
+    rows.push(`  ${percentile(ms, 50).toFixed(1).padStart(7)} ms median, ${ms[ms.length - 1].toFixed(1).padStart(7)} ms max  ${example.replace(/[?].*$/, "?…")}`);
+  }
+  return rows.join("\n");
+}
+
+function percentile(sorted: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
 }
 
-async function hammer(port: number, seconds: number, path: () => string, token?: string) {
+type Load = { rps: number; p50: number; p95: number; p99: number; errors: number; total: number; detail: string };
+
+async function hammer(port: number, seconds: number, path: () => string, headers: Record<string, string> = {}): Promise<Load> {
   const latencies: number[] = [];
   let non2xx = 0;
   const statuses = new Map<number, number>();
@@ -120,7 +173,7 @@ async function hammer(port: number, seconds: number, path: () => string, token?:
     url: `http://127.0.0.1:${port}`,
     connections: CONNECTIONS,
     duration: seconds,
-    headers: token ? { authorization: `Bearer ${token}` } : {},
+    headers,
     requests: [{ method: "GET", setupRequest: (req) => ({ ...req, path: path() }) }],
   });
   instance.on("response", (_client: unknown, status: number, _bytes: number, ms: number) => {
@@ -129,66 +182,99 @@ async function hammer(port: number, seconds: number, path: () => string, token?:
     statuses.set(status, (statuses.get(status) ?? 0) + 1);
   });
   const result = await instance;
+  const sorted = latencies.sort((a, b) => a - b);
   return {
     rps: result.requests.average,
-    p95: percentile(latencies, 95),
+    p50: percentile(sorted, 50),
+    p95: percentile(sorted, 95),
+    p99: percentile(sorted, 99),
     // autocannon counts timeouts among its errors.
     errors: result.errors + non2xx,
     total: latencies.length,
-    detail: `${result.timeouts} timeouts, ${result.errors - result.timeouts} connection errors, statuses ${JSON.stringify(Object.fromEntries(statuses))}`,
+    detail: `${result.timeouts} timeouts, statuses ${JSON.stringify(Object.fromEntries(statuses))}`,
   };
+}
+
+async function freePort(): Promise<number> {
+  const { freePort: find } = await import("@/tests/support/ports");
+  return find();
+}
+
+async function startServer(url: string, secret: string, profileDir: string | null) {
+  if (!existsSync(join(ROOT, ".next", "BUILD_ID"))) throw new Error("No production build in .next: run `npx next build` first.");
+  const port = await freePort();
+  const args = [...(profileDir ? ["--cpu-prof", `--cpu-prof-dir=${profileDir}`] : []), join(ROOT, "node_modules/next/dist/bin/next"), "start", "-p", String(port), "-H", "127.0.0.1"];
+  const server: ChildProcess = spawn(process.execPath, args, {
+    cwd: ROOT,
+    detached: true,
+    env: { ...process.env, NODE_ENV: "production", DATABASE_URL: url, AUTH_SECRET: secret, MAIL_CATCHER: "off", JOB_WORKERS: "0", NEXT_TELEMETRY_DISABLED: "1" },
+    stdio: ["ignore", "ignore", "inherit"],
+  });
+  const deadline = Date.now() + 120_000;
+  for (;;) {
+    const ok = await fetch(`http://127.0.0.1:${port}/api/health`).then((r) => r.ok, () => false);
+    if (ok) break;
+    if (server.exitCode !== null || Date.now() > deadline) throw new Error("next start did not come up");
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  const exited = new Promise<void>((resolve) => server.once("exit", () => resolve()));
+  // SIGINT lets node write the CPU profile on the way out.
+  const stop = async () => {
+    if (server.exitCode === null && server.pid) process.kill(-server.pid, "SIGINT");
+    await Promise.race([exited, new Promise((r) => setTimeout(r, 60_000))]);
+  };
+  return { port, stop };
+}
+
+function line(name: string, r: Load, base: Load | null): string {
+  const ratio = base ? ` (${(r.rps / base.rps).toFixed(2)}× baseline req/s, p95 ${(r.p95 / base.p95).toFixed(1)}× baseline)` : "";
+  const target = base ? `; target p95 < 50 ms: ${r.p95 < 50 ? "met" : "MISSED"}, errors 0: ${r.errors === 0 ? "met" : "MISSED"}` : "";
+  return `${name}: ${r.rps.toFixed(0)} req/s, p50 ${r.p50.toFixed(1)} ms, p95 ${r.p95.toFixed(1)} ms, p99 ${r.p99.toFixed(1)} ms, errors ${r.errors} of ${r.total}${ratio}${target} [${r.detail}]`;
 }
 
 export async function main(args: string[]): Promise<void> {
   const quick = args.includes("--quick");
-  const seconds = quick ? 3 : 20;
+  const profile = args.includes("--profile");
+  const seconds = quick ? 5 : 20;
   const dir = mkdtempSync(join(tmpdir(), "squarely-bench-api-"));
   const url = `file:${join(dir, "bench.db")}`;
-  const procs: ChildProcess[] = [];
+  const authSecret = randomBytes(24).toString("hex");
+  const profileDir = profile ? join(dir, "profile") : null;
+  let server: Awaited<ReturnType<typeof startServer>> | null = null;
   try {
-    await migrateDatabase(url);
     let t0 = performance.now();
-    const { ws, secret, modelIds } = await load(url);
-    console.log(`loaded ${EDGES} maps among ${MODELS} models in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
-
-    const port = 40_000 + Math.floor(Math.random() * 10_000);
-    const server = child(["serve", String(port)], url);
-    procs.push(server);
-    await firstJson(server);
-    const pick = random(7);
-    const randomRead = () =>
-      `/api/models/${modelIds[Math.floor(pick() * MODELS)]}/maps?direction=${pick() < 0.5 ? "from" : "to"}&limit=50`;
-    const base = await hammer(port, seconds, () => "/baseline");
-    await hammer(port, 2, randomRead, secret); // warm-up: JIT and page cache
-    await new Promise((r) => setTimeout(r, 500)); // let the warm-up's last requests drain
-    const read = await hammer(port, seconds, randomRead, secret);
-    console.log(
-      `note: handler served by a plain node http server in a child process (not next start); autocannon ${CONNECTIONS} connections, ${seconds} s each`,
-    );
-    console.log(
-      `baseline (constant JSON, same server): ${base.rps.toFixed(0)} req/s, p95 ${base.p95.toFixed(1)} ms, errors ${base.errors}`,
-    );
-    console.log(
-      `coarse-grains to/from GET /api/models/{id}/maps: ${read.rps.toFixed(0)} req/s (${(read.rps / base.rps).toFixed(2)}× baseline), p95 ${read.p95.toFixed(1)} ms (target < 50 ms: ${read.p95 < 50 ? "met" : "MISSED"}), errors ${read.errors} of ${read.total} (target 0: ${read.errors === 0 ? "met" : "MISSED"}; ${read.detail})`,
-    );
-    server.kill();
-
-    const pairs: [string, string][] = Array.from({ length: 30 }, () => [
-      modelIds[Math.floor(pick() * MODELS)],
-      modelIds[Math.floor(pick() * MODELS)],
-    ]);
+    await migrateDatabase(url);
+    await run(process.execPath, ["--conditions=react-server", "--import", "tsx", "db/seed.ts"], { DATABASE_URL: url, MAIL_CATCHER: "off" });
+    console.log(`seeded the demo scenario in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
     t0 = performance.now();
-    const timer = child(["paths", JSON.stringify(pairs), ws], url);
-    procs.push(timer);
-    const timed = (await firstJson(timer)) as { point: number[]; depth4: number[]; found: number[] };
-    const median = percentile(timed.depth4, 50);
-    const worst = Math.max(...timed.depth4);
-    const pointMedian = percentile(timed.point, 50);
-    console.log(
-      `depth-4 path query (${pairs.length} random pairs, ${timed.found.filter((n) => n > 0).length} connected): median ${median.toFixed(1)} ms, p95 ${percentile(timed.depth4, 95).toFixed(1)} ms, max ${worst.toFixed(1)} ms (${(median / pointMedian).toFixed(0)}× a point lookup of ${pointMedian.toFixed(2)} ms; target < 200 ms: ${worst < 200 ? "met" : "MISSED"})`,
-    );
+    const { viewer, secret, modelIds } = await load(url);
+    console.log(`loaded ${EDGES} maps among ${MODELS} models into the demo workspace in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+    const session = await encode({ token: { sub: viewer.id, email: viewer.email, name: viewer.name }, secret: authSecret, salt: SESSION_COOKIE });
+
+    server = await startServer(url, authSecret, profileDir);
+    const mix = readMix(modelIds);
+    const token = { authorization: `Bearer ${secret}` };
+    const cookie = { cookie: `${SESSION_COOKIE}=${session}` };
+    // Warm-up: JIT, route compilation and the page cache, for each way in.
+    await hammer(server.port, 2, () => "/api/health");
+    await hammer(server.port, 3, mix, token);
+    await hammer(server.port, 3, mix, cookie);
+    if (profile) console.log(`each endpoint alone (one connection, token):\n${await timeEachEndpoint(server.port, modelIds, token)}`);
+    const base = await hammer(server.port, seconds, () => "/api/health");
+    const viaToken = await hammer(server.port, seconds, mix, token);
+    const viaSession = await hammer(server.port, seconds, mix, cookie);
+    console.log(`next start, demo database + ${EDGES} maps; autocannon ${CONNECTIONS} connections, ${seconds} s each; mix of 11 read endpoints`);
+    console.log(line("baseline GET /api/health (constant JSON, same server)", base, null));
+    console.log(line("API reads with a token", viaToken, base));
+    console.log(line("API reads with a session", viaSession, base));
+    await server.stop();
+    server = null;
+    if (profileDir) {
+      const file = existsSync(profileDir) ? readdirSync(profileDir).find((f) => f.endsWith(".cpuprofile")) : undefined;
+      console.log(file ? summariseCpuProfile(join(profileDir, file)) : "no CPU profile was written (the server did not exit in time)");
+    }
   } finally {
-    for (const p of procs) if (p.exitCode === null) p.kill();
+    await server?.stop();
     rmSync(dir, { recursive: true, force: true });
   }
 }

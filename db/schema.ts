@@ -16,6 +16,7 @@ export const MAP_KINDS = ["decimation", "lumping", "iterate", "blocking", "proje
 export const MAP_STATUSES = ["certified", "retracted"] as const;
 export const DERIVATIONS = ["reflect", "complement", "reflect-complement"] as const;
 export const JOB_STATUSES = ["queued", "running", "succeeded", "failed", "cancelled"] as const;
+export const JOB_LANES = ["small", "large"] as const;
 export const OUTBOX_STATUSES = ["pending", "sent", "failed"] as const;
 export const MAIL_DELIVERIES = ["immediate", "digest", "off"] as const;
 export const WATCH_SCOPES = ["class", "onto", "lumping-of"] as const;
@@ -104,6 +105,8 @@ export const models = sqliteTable(
     uniqueIndex("models_workspace_address_uq").on(t.workspaceId, t.address),
     index("models_workspace_kind_idx").on(t.workspaceId, t.kind),
     index("models_workspace_rule_idx").on(t.workspaceId, t.rule),
+    // Model lists and searches page by (name, id): walked in order instead of sorting the workspace.
+    index("models_workspace_name_idx").on(t.workspaceId, t.name, t.id),
   ],
 );
 export type Model = InferSelectModel<typeof models>;
@@ -292,6 +295,11 @@ export const jobs = sqliteTable(
     createdAt: createdAt(),
     startedAt: integer("started_at", { mode: "timestamp_ms" }),
     finishedAt: integer("finished_at", { mode: "timestamp_ms" }),
+    /** The runner that holds the job while it runs (process-unique), and until when (renewed by its heartbeat). */
+    leaseOwner: text("lease_owner"),
+    leaseExpiresAt: integer("lease_expires_at", { mode: "timestamp_ms" }),
+    /** Small jobs have workers that large ones may not take (fair sharing, see server/jobs/fairness.ts). */
+    lane: text("lane", { enum: JOB_LANES }).notNull().default("large"),
   },
   (t) => [index("jobs_status_idx").on(t.status), index("jobs_owner_idx").on(t.ownerId, t.status)],
 );

@@ -2,7 +2,7 @@
 # Every test: typecheck, lint, unit, integration, build, end-to-end. Ends with one summary line.
 set -uo pipefail
 cd "$(dirname "$0")/.."
-bash scripts/ensure-deps.sh --browser || exit 1
+bash scripts/ensure-deps.sh --browser --redis || exit 1
 
 export NODE_ENV=test
 results=$(mktemp -d)

@@ -63,6 +63,9 @@ async function searchModels({
   return withDb("searching models", async () => {
     const c: SQL[] = [eq(models.workspaceId, workspaceId)];
     if (q) c.push(q.startsWith("sha256:") ? eq(models.address, q) : or(likeEscaped(sql`${models.name}`, q), likeEscaped(sql`${models.description}`, q))!);
+    // Descriptions are not in the trigram index: only a term that no description holds may use it.
+    const byName = q && !q.startsWith("sha256:") ? await modelNameCandidates(db, workspaceId, q) : null;
+    if (byName) c.push(sql`${models}.rowid IN (SELECT value FROM json_each(${JSON.stringify(byName)}))`);
     if (rule !== undefined) c.push(eq(models.rule, rule));
     if (symmetryClass !== undefined) c.push(eq(models.symmetryClass, symmetryClass));
     if (tag) c.push(hasTag(sql`${models.tags}`, tag));
@@ -82,8 +85,52 @@ async function searchModels({
   });
 }
 
+/**
+ * Rowids of the workspace's models whose name contains `q`, from the trigram index, when no
+ * model's description could match instead (descriptions are few and short: one LIKE over them).
+ * Null when the index cannot answer or the term is common.
+ */
+async function modelNameCandidates(db: Executor, workspaceId: string, q: string): Promise<number[] | null> {
+  if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
+  const pattern = `%${q}%`;
+  const [described] = await db.all<{ n: number }>(
+    sql`SELECT count(*) AS n FROM models WHERE workspace_id = ${workspaceId} AND description != '' AND description LIKE ${pattern}`,
+  );
+  if (Number(described.n) > 0) return null;
+  const rows = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${TRIGRAM_CANDIDATES + 1}`);
+  return rows.length > TRIGRAM_CANDIDATES ? null : rows.map((row) => Number(row.r));
+}
+
 const source = alias(models, "s");
 const target = alias(models, "t");
+
+/** Beyond this many candidate maps a term is common, and the plain search is the faster one. */
+const TRIGRAM_CANDIDATES = 4000;
+
+/**
+ * The rowids of the maps whose summary, or either end's name, contains `q`, from the trigram
+ * indexes (drizzle/0002_search-trigrams.sql): a few milliseconds where the LIKE scan of every map
+ * of a large atlas took hundreds. Null when the index cannot answer (fewer than three characters,
+ * or a LIKE wildcard or escape in `q`, which the index does not serve) or the term is common.
+ */
+async function trigramCandidates(db: Executor, workspaceId: string, q: string): Promise<number[] | null> {
+  if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
+  const pattern = `%${q}%`;
+  const cap = TRIGRAM_CANDIDATES + 1;
+  const bySummary = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern} LIMIT ${cap}`);
+  if (bySummary.length > TRIGRAM_CANDIDATES) return null;
+  // Subqueries, not joins: joined, SQLite walks the workspace's rows and probes the index per row.
+  const byName = await db.all<{ r: number }>(
+    sql`SELECT rowid AS r FROM maps WHERE workspace_id = ${workspaceId} AND (
+          source_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
+            AND rowid IN (SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${cap}))
+          OR target_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
+            AND rowid IN (SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${cap})))
+        LIMIT ${cap}`,
+  );
+  const rowids = new Set([...bySummary, ...byName].map((row) => Number(row.r)));
+  return rowids.size > TRIGRAM_CANDIDATES ? null : [...rowids];
+}
 
 async function searchMaps({
   db = getDatabase(),
@@ -100,17 +147,17 @@ async function searchMaps({
   cursor,
 }: AtlasSearch): Promise<AtlasSearchResult> {
   return withDb("searching maps", async () => {
+    const candidates = q && !q.startsWith("sha256:") ? await trigramCandidates(db, workspaceId, q) : null;
+    if (candidates && candidates.length === 0) return { target: "maps", items: [], nextCursor: null };
     const c: SQL[] = [eq(maps.workspaceId, workspaceId)];
     if (!includeRetracted) c.push(eq(maps.status, "certified"));
+    // One JSON parameter rather than thousands of placeholders: the statement is prepared per request.
+    if (candidates) c.push(sql`${maps}.rowid IN (SELECT value FROM json_each(${JSON.stringify(candidates)}))`);
     if (q) {
       c.push(
         q.startsWith("sha256:")
           ? eq(maps.certificateAddress, q)
-          : or(
-              likeEscaped(sql`${maps.summary}`, q),
-              likeEscaped(sql`${source.name}`, q),
-              likeEscaped(sql`${target.name}`, q),
-            )!,
+          : or(likeEscaped(sql`${maps.summary}`, q), likeEscaped(sql`${source.name}`, q), likeEscaped(sql`${target.name}`, q))!,
       );
     }
     if (rule !== undefined) c.push(eq(source.rule, rule));

@@ -13,8 +13,10 @@ export type PoolOptions = {
 };
 
 export type TaskInput = {
-  /** Absolute path of a module exporting `compute(params, { onProgress, signal })`. */
-  module: string;
+  /** Key of the compute step in the worker's static table (kinds/computes.ts). */
+  compute: string;
+  /** File URL of another table exporting COMPUTES (the job tests' own kinds). @default the product's */
+  computes?: string;
   params: unknown;
   timeoutMs: number;
   onProgress: (fraction: number, item: string | null) => void;
@@ -74,7 +76,7 @@ export function createWorkerPool(options: PoolOptions): WorkerPool {
 
     try {
       const reply = (await pool.run(
-        { module: input.module, params: input.params, cancelFlag, port: port2 },
+        { compute: input.compute, computes: input.computes, params: input.params, cancelFlag, port: port2 },
         { transferList: [port2], signal: terminate.signal },
       )) as { output: unknown; cancelled: boolean };
       if (reply.cancelled || cancelled) return { status: "cancelled", output: reply.output };

@@ -23,13 +23,15 @@ export function startJobRunner(): Promise<Started | null> {
 async function start(): Promise<Started> {
   const db = getDatabase();
   let runner: JobRunner | null = null;
-  if (env.JOB_WORKERS > 0) {
-    runner = createJobRunner({ db, workers: env.JOB_WORKERS });
+  // Under BullMQ the jobs run in separate worker processes (npm run jobs:worker), not here.
+  if (env.JOB_WORKERS > 0 && env.JOB_QUEUE === "in-process") {
+    runner = createJobRunner({ db, workers: env.JOB_WORKERS, leaseMs: env.JOB_LEASE_MS });
     await runner.start();
   }
   const outbox = createOutboxDelivery({ db, send: sendMail, messageIdDomain: new URL(env.APP_URL).hostname, beforePass: queueDigests });
   outbox.start();
   void outbox.deliverDue().catch((err) => console.error("mail outbox:", err));
-  console.log(`job runner: ${env.JOB_WORKERS} worker thread(s); mail outbox delivery started`);
+  const jobs = runner ? `${env.JOB_WORKERS} job worker thread(s)` : env.JOB_QUEUE === "bullmq" ? "jobs on BullMQ (worker processes)" : "no job workers";
+  console.log(`job runner: ${jobs}; mail outbox delivery started`);
   return { runner, outbox };
 }

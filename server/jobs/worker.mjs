@@ -1,24 +1,25 @@
-/* global AbortController, AbortSignal */
+/* global AbortController, AbortSignal, URL */
 // The job worker thread. A plain ES module so that it loads the same way under `next start`,
 // vitest, tsx and plain node: it enables TypeScript through tsx's scoped loader and imports the
-// job kind's compute module, which depends on lib/ alone (no database, no Next).
-import { pathToFileURL } from "node:url";
+// static table of compute steps (kinds/computes.ts), which depends on lib/ alone (no database, no Next).
 import { tsImport } from "tsx/esm/api";
 
-const modules = new Map();
+const PRODUCT_COMPUTES = new URL("./kinds/computes.ts", import.meta.url).href;
+const tables = new Map();
 const PROGRESS_INTERVAL_MS = 100;
 
-function loadModule(file) {
-  let loading = modules.get(file);
+function loadComputes(href) {
+  let loading = tables.get(href);
   if (!loading) {
-    loading = tsImport(pathToFileURL(file).href, import.meta.url);
-    modules.set(file, loading);
+    loading = tsImport(href, import.meta.url).then((mod) => mod.COMPUTES);
+    tables.set(href, loading);
   }
   return loading;
 }
 
 /**
- * task: { module, params, cancelFlag: SharedArrayBuffer, port: MessagePort }.
+ * task: { compute, params, cancelFlag: SharedArrayBuffer, port: MessagePort, computes? }: `compute`
+ * is a key of the COMPUTES table exported by `computes` (a file URL; the product's table by default).
  * The cancel flag is shared memory rather than a message, because a compute loop that never
  * yields to the event loop would never receive a message; it reads the flag on each progress call.
  */
@@ -46,9 +47,10 @@ export default async function runJobTask(task) {
     }
   };
   try {
-    const mod = await loadModule(task.module);
-    if (typeof mod.compute !== "function") throw new Error(`${task.module} exports no compute(params, context)`);
-    const output = await mod.compute(task.params, { onProgress, signal: controller.signal });
+    const computes = await loadComputes(task.computes ?? PRODUCT_COMPUTES);
+    const compute = computes?.[task.compute];
+    if (typeof compute !== "function") throw new Error(`no compute step "${task.compute}" is registered`);
+    const output = await compute(task.params, { onProgress, signal: controller.signal });
     return { output, cancelled: controller.signal.aborted || Atomics.load(flag, 0) === 1 };
   } finally {
     task.port.close();

@@ -1,4 +1,3 @@
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { setDatabase } from "@/db/queries/connection";
@@ -11,10 +10,10 @@ import * as jobsRoute from "@/app/api/jobs/route";
 import * as jobRoute from "@/app/api/jobs/[id]/route";
 import * as cancelRoute from "@/app/api/jobs/[id]/cancel/route";
 import { SleepAndCountParams } from "./jobs-sleep-kind";
+import { TEST_COMPUTES } from "./jobs-computes";
 import { seedPeople, waitFor } from "./jobs-fixtures";
 
-const computeModule = path.relative(process.cwd(), path.join(__dirname, "jobs-sleep-kind.ts"));
-registerJobKind(defineJobKind({ name: "test-sleep-and-count", title: "Count", paramsSchema: SleepAndCountParams, computeModule, timeoutMs: 20_000 }));
+registerJobKind(defineJobKind({ name: "test-sleep-and-count", title: "Count", paramsSchema: SleepAndCountParams, compute: "test-sleep-and-count", timeoutMs: 20_000 }));
 
 let t: TestDatabase;
 let people: Awaited<ReturnType<typeof seedPeople>>["people"];
@@ -105,7 +104,7 @@ describe("the jobs API", () => {
   });
 
   it("runs what was queued through the API to completion", async () => {
-    runner = createJobRunner({ db: t.db, workers: 2, pollMs: 100 });
+    runner = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 2, pollMs: 100 });
     await runner.start();
     await runner.drain();
     as(people.contributor);

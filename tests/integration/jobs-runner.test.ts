@@ -1,6 +1,6 @@
-import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
+import { eq } from "drizzle-orm";
 import { jobs } from "@/db/schema";
 import { claimJob } from "@/db/queries/jobs";
 import { createInProcessQueue } from "@/server/jobs/in-process-queue";
@@ -10,11 +10,11 @@ import { defineJobKind } from "@/server/jobs/kinds/types";
 import type { JobQueue, JobView } from "@/server/jobs/queue";
 import { AppError } from "@/server/errors";
 import { SleepAndCountParams } from "./jobs-sleep-kind";
+import { TEST_COMPUTES } from "./jobs-computes";
 import { seedPeople, waitFor } from "./jobs-fixtures";
 
-const computeModule = path.relative(process.cwd(), path.join(__dirname, "jobs-sleep-kind.ts"));
-registerJobKind(defineJobKind({ name: "test-sleep-and-count", title: "Count", paramsSchema: SleepAndCountParams, computeModule, timeoutMs: 20_000 }));
-registerJobKind(defineJobKind({ name: "test-short-bound", title: "Count, 600 ms bound", paramsSchema: SleepAndCountParams, computeModule, timeoutMs: 600 }));
+registerJobKind(defineJobKind({ name: "test-sleep-and-count", title: "Count", paramsSchema: SleepAndCountParams, compute: "test-sleep-and-count", timeoutMs: 20_000 }));
+registerJobKind(defineJobKind({ name: "test-short-bound", title: "Count, 600 ms bound", paramsSchema: SleepAndCountParams, compute: "test-sleep-and-count", timeoutMs: 600 }));
 
 let t: TestDatabase;
 let queue: JobQueue;
@@ -26,7 +26,7 @@ beforeAll(async () => {
   t = await createTestDatabase();
   ({ workspace: { id: ws }, people } = await seedPeople(t.db));
   queue = createInProcessQueue({ db: t.db, perUserLimit: 3 });
-  runner = createJobRunner({ db: t.db, workers: 2, memoryMb: 96, pollMs: 100, graceMs: 800 });
+  runner = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 2, memoryMb: 96, pollMs: 100, graceMs: 800 });
   await runner.start();
 });
 
@@ -158,40 +158,51 @@ describe("the in-process job queue", () => {
   });
 });
 
-describe("restart recovery", () => {
-  it("re-queues a job interrupted once, then fails it with a reason when interrupted again; queued jobs run", async () => {
+describe("leases: a job whose runner died is taken over after its lease runs out", () => {
+  // A runner that died: it claimed the job with a lease and never renewed it.
+  const deadClaim = (id: string) => claimJob({ db: t.db, id, owner: "dead-runner", leaseMs: 1_000, now: new Date(Date.now() - 60_000) });
+  const liveClaim = (id: string) => claimJob({ db: t.db, id, owner: "live-runner", leaseMs: 60_000 });
+
+  it("re-queues a job whose lease lapsed once, then fails it with a reason when it lapses again; a held lease is left alone", async () => {
     await runner.drain();
     await runner.stop();
     const job = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
-    // A runner that died: the row says running, no thread is working on it.
-    const idle = createJobRunner({ db: t.db, workers: 1 });
-    expect(await claimJob({ db: t.db, id: job.id })).not.toBeNull();
+    const held = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
+    const idle = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 1 });
+    expect(await deadClaim(job.id)).not.toBeNull();
+    expect(await liveClaim(held.id)).not.toBeNull();
 
     const first = await idle.recover();
     expect(first.requeued).toEqual([job.id]);
     let row = await get(job.id);
     expect(row.status).toBe("queued");
     expect(row.attempts).toBe(1);
-    expect(row.currentItem).toBe("re-queued after a restart interrupted it");
+    expect(row.currentItem).toBe("re-queued: its worker stopped before the job finished");
+    expect((await get(held.id)).status).toBe("running");
 
-    expect(await claimJob({ db: t.db, id: job.id })).not.toBeNull();
+    expect(await deadClaim(job.id)).not.toBeNull();
     const second = await idle.recover();
     expect(second.failed).toEqual([job.id]);
     row = await get(job.id);
     expect(row.status).toBe("failed");
-    expect(row.error).toBe("interrupted by a server restart 2 times; not retried again");
+    expect(row.error).toBe("its worker stopped 2 times before the job finished (lease expired); not retried again");
 
-    const waiting = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
-    const interrupted = await queue.enqueue({ workspaceId: ws, ownerId: people.admin.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
-    await claimJob({ db: t.db, id: interrupted.id });
+    const waiting = await queue.enqueue({ workspaceId: ws, ownerId: people.curator.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
+    const interrupted = await queue.enqueue({ workspaceId: ws, ownerId: people.curator.id, kind: "test-sleep-and-count", params: { steps: 2, stepMs: 1 } });
+    await deadClaim(interrupted.id);
     await idle.start();
     await idle.drain();
     expect((await get(waiting.id)).status).toBe("succeeded");
     const rerun = await get(interrupted.id);
     expect(rerun.status).toBe("succeeded");
     expect(rerun.attempts).toBe(2);
+    // The live runner's job was never touched by the other runner.
+    const stillHeld = await get(held.id);
+    expect(stillHeld.status).toBe("running");
+    expect(stillHeld.attempts).toBe(1);
+    await t.db.update(jobs).set({ status: "cancelled" }).where(eq(jobs.id, held.id));
     await idle.stop();
-    runner = createJobRunner({ db: t.db, workers: 1 });
+    runner = createJobRunner({ db: t.db, computes: TEST_COMPUTES, workers: 1 });
   });
 
   it("cancels a queued job at once, before any runner claims it", async () => {

@@ -1,6 +1,7 @@
 // A job kind for the job-system tests only (registered by the tests, never by the product): counts
 // to `steps`, busy-waiting `stepMs` per step so that the worker thread never yields to its event
 // loop — the case that cooperative cancellation through shared memory has to handle.
+import { appendFileSync } from "node:fs";
 import { z } from "zod";
 
 export const SleepAndCountParams = z.object({
@@ -11,10 +12,15 @@ export const SleepAndCountParams = z.object({
   /** Allocate this many MB per step and keep them (to hit the memory bound). */
   allocateMb: z.number().int().min(0).max(64).default(0),
   failAt: z.number().int().min(0).optional(),
+  /** Append `mark` and a newline to this file when the computation starts (the cluster tests count runs). */
+  runLog: z.string().optional(),
+  mark: z.string().optional(),
 });
 export type SleepAndCountParams = z.infer<typeof SleepAndCountParams>;
 
 export function compute(params: SleepAndCountParams, context: { onProgress: (f: number, item: string) => void; signal: AbortSignal }) {
+  // One short write with O_APPEND: lines from several processes do not interleave.
+  if (params.runLog) appendFileSync(params.runLog, `${params.mark ?? ""}\n`);
   const kept: number[][] = [];
   let counted = 0;
   for (let i = 0; i < params.steps; i++) {

@@ -11,7 +11,7 @@ export const ecaAtlasKind = defineJobKind({
   name: "eca-atlas",
   title: "ECA atlas",
   paramsSchema: EcaAtlasParams,
-  computeModule: "server/jobs/kinds/eca-atlas.compute.ts",
+  compute: "eca-atlas",
   timeoutMs: 30 * 60_000,
   computeShare: 0.3,
   example: { minBlock: 2, maxBlock: 3, search: "projections" },

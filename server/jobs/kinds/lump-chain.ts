@@ -14,9 +14,10 @@ export const lumpChainKind = defineJobKind({
   name: "lump-chain",
   title: "Coarsest lumping",
   paramsSchema: LumpChainParams,
-  computeModule: "server/jobs/kinds/lump-chain.compute.ts",
+  compute: "lump-chain",
   timeoutMs: 20 * 60_000,
   computeShare: 0.7,
+  isSmall: (p) => p.chain.matrix.length <= 32,
   example: {
     chain: { kind: "markov", labels: ["a", "b", "c"], matrix: [["1/2", "1/4", "1/4"], ["1/3", "1/3", "1/3"], ["1/3", "1/3", "1/3"]] },
     observable: ["a", "other", "other"],

@@ -7,9 +7,11 @@ export const searchProjectionKind = defineJobKind({
   name: "search-projection",
   title: "Coarse-graining search",
   paramsSchema: SearchProjectionParams,
-  computeModule: "server/jobs/kinds/search-projection.compute.ts",
+  compute: "search-projection",
   timeoutMs: 20 * 60_000,
   computeShare: 0.8,
+  // Work grows as 8^block: up to block 3 a search takes seconds.
+  isSmall: (p) => p.maxBlock <= 3,
   example: { rule: 110, minBlock: 2, maxBlock: 4, search: "both" },
   describe: (params) => {
     const p = SearchProjectionParams.safeParse(params);

@@ -13,7 +13,7 @@ export const totalisticAtlasKind = defineJobKind({
   name: "totalistic-atlas",
   title: "Three-state totalistic atlas",
   paramsSchema: TotalisticAtlasParams,
-  computeModule: "server/jobs/kinds/totalistic-atlas.compute.ts",
+  compute: "totalistic-atlas",
   timeoutMs: 30 * 60_000,
   computeShare: 0.3,
   example: { minCode: 0, maxCode: 2186, blocks: [1] },

@@ -15,9 +15,10 @@ export const verifyChainKind = defineJobKind({
   name: "verify-chain",
   title: "Chain check",
   paramsSchema: VerifyChainParams,
-  computeModule: "server/jobs/kinds/verify-chain.compute.ts",
+  compute: "verify-chain",
   timeoutMs: 10 * 60_000,
   computeShare: 0.7,
+  isSmall: (p) => p.certificates.length <= 4,
   example: { name: "my chain", certificates: [], save: true },
   describe: (params) => {
     const p = VerifyChainParams.safeParse(params);
