@@ -1,7 +1,7 @@
 import "server-only";
 import { type ImportCertificate, type ImportInput, isWorkspaceEmpty, readWorkspaceContents, writeWorkspaceImport } from "@/db/queries/bundle";
 import type { ModelFields } from "@/db/queries/models";
-import { runVerification } from "@/server/atlas/pool";
+import { MAX_WAITING_PER_PERSON, runVerification } from "@/server/atlas/pool";
 import { AppError } from "@/server/errors";
 import { BUNDLE_FORMAT, BUNDLE_VERSION, type WorkspaceBundle } from "./bundle-schema";
 
@@ -80,8 +80,12 @@ async function modelFieldsOf(model: Record<string, unknown>, claimed: string, in
   return outcome.fields;
 }
 
-/** Runs the checks a batch at a time so that every verification worker thread has work; results in input order, first failure thrown. */
-async function inBatches<T, R>(items: T[], f: (item: T, index: number) => Promise<R>, size = 16): Promise<R[]> {
+/**
+ * Runs the checks a batch at a time so that every verification worker thread has work; results in input
+ * order, first failure thrown. A batch never exceeds what one caller may have waiting in the fair queue
+ * (a larger one was answered 429 by the verifier).
+ */
+async function inBatches<T, R>(items: T[], f: (item: T, index: number) => Promise<R>, size = MAX_WAITING_PER_PERSON): Promise<R[]> {
   const out: R[] = [];
   for (let start = 0; start < items.length; start += size) {
     out.push(...(await Promise.all(items.slice(start, start + size).map((item, j) => f(item, start + j)))));
