@@ -69,6 +69,7 @@ async function Results({ workspaceId, filters, view }: { workspaceId: string; fi
     summary: m.summary,
     status: m.status,
     derivation: m.derivation,
+    definition: m.definition,
     from: { id: m.source.id, name: m.source.name },
     other: { id: m.target.id, name: m.target.name },
   }));

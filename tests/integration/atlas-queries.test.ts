@@ -149,4 +149,13 @@ describe("reading and retracting maps", () => {
     const percent = await searchAtlas({ workspaceId: ws, target: "models", q: "%" });
     expect(percent.items).toHaveLength(0);
   });
+
+  it("lists each map with its projection as the certificate states it, so the list can show what the map is", async () => {
+    const input = edgeInput(ws, people.contributor.id, 150, 105);
+    const body = JSON.stringify({ map: { block: 2, projection: [0, 1, 1, 0] } });
+    const made = await createCertifiedEdge({ ...input, certificate: { ...input.certificate, body } });
+    const listed = await searchAtlas({ workspaceId: ws, target: "maps", rule: 150 });
+    const item = listed.items.find((m) => m.id === made.mapId) as { definition: string | null } | undefined;
+    expect(item && JSON.parse(item.definition!)).toEqual([0, 1, 1, 0]);
+  });
 });
