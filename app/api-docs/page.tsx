@@ -56,11 +56,11 @@ export default function ApiDocsPage() {
       />
       <Panel title="Authentication">
         <p className="text-sm text-ink">
-          Send a personal API token as <code className="font-mono">Authorization: Bearer sqt_…</code> (create one under{" "}
+          Send a personal API token as <code className="font-mono">Authorization: Bearer sqt_…</code> (create one on the{" "}
           <a className="underline" href="/settings/tokens">
-            Settings → API tokens
-          </a>
-          ), or call from the browser while signed in. A token acts in its workspace with the lower of its role and yours.
+            API tokens
+          </a>{" "}
+          page), or call from the browser while signed in. A token acts in its workspace with the lower of its role and yours.
         </p>
       </Panel>
       {[...byTag].map(([tag, ops]) => (

@@ -17,6 +17,17 @@ export const metadata: Metadata = { title: "Atlas" };
 
 type View = "models" | "maps";
 
+/** A JSON list of strings (a chain's state labels), or undefined when the text is not one. */
+function stringList(text: string | null): string[] | undefined {
+  if (!text) return undefined;
+  try {
+    const value: unknown = JSON.parse(text);
+    return Array.isArray(value) && value.every((v) => typeof v === "string") ? value : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
 async function Results({ workspaceId, filters, view }: { workspaceId: string; filters: AtlasFilters; view: View }) {
   let result;
   try {
@@ -69,6 +80,8 @@ async function Results({ workspaceId, filters, view }: { workspaceId: string; fi
     summary: m.summary,
     status: m.status,
     derivation: m.derivation,
+    definition: m.definition,
+    labels: stringList(m.sourceLabels),
     from: { id: m.source.id, name: m.source.name },
     other: { id: m.target.id, name: m.target.name },
   }));

@@ -9,6 +9,7 @@ import { describeWatch, listWorkspaceWatches } from "@/db/queries/watches";
 import { getWorkspaceSummary, listActiveJobs, listRecentChains, listRecentMaps } from "@/db/queries/workspaces";
 import { can, refusalReason } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
+import { getJobKind } from "@/server/jobs";
 import { readableLog } from "@/server/team/log";
 
 export const metadata: Metadata = { title: "Workspace home" };
@@ -115,8 +116,8 @@ export default async function DashboardPage() {
               <ul className="divide-y divide-line">
                 {running.map((j) => (
                   <li key={j.id} className="flex items-center justify-between gap-2 py-2 text-sm">
-                    <Link href={`/jobs/${j.id}`} className="truncate text-tide-800 hover:underline">
-                      {j.kind}
+                    <Link href={`/jobs/${j.id}`} className="truncate text-tide-800 hover:underline" title={j.kind}>
+                      {getJobKind(j.kind)?.title ?? j.kind}
                     </Link>
                     <span className="text-xs text-ink-faint">
                       {j.ownerName ?? "someone"} · {j.status} {Math.round(j.progress * 100)}%

@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { verificationName } from "@/components/atlas/chainVerification";
 import { CounterexampleView } from "@/components/counterexample/counterexample-view";
 
 type Counts = { created?: number; existing?: number; refused?: { what: string; reason: string }[] };
@@ -92,7 +93,13 @@ export function JobResultView({ result, params }: { result: unknown; params: unk
         <Link href={`/chains/${r.chainId}`} className="text-tide-800 underline">
           The stored chain
         </Link>
-        {r.verification ? ` (${r.verification})` : ""}.
+        {r.verification ? (
+          <>
+            {" "}
+            (<span title={r.verification}>{verificationName(r.verification)}</span>)
+          </>
+        ) : null}
+        .
       </li>,
     );
   } else if (r.summary) items.push(<li key="summary">{r.summary}</li>);

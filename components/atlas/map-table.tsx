@@ -16,11 +16,13 @@ export type MapRow = {
   from?: { id: string; name: string };
   /** The projection or partition as JSON text, when the list knows it. */
   definition?: string | null;
+  /** The source's state labels, when the list is not about one model (else the table's `labels`). */
+  labels?: string[];
 };
 
 /** The projection as its symbols (with a familiar name), or the partition as blocks. */
 function Definition({ row, labels }: { row: MapRow; labels?: string[] }) {
-  const d = describeDefinition(row.kind, row.definition ?? null, row.block, labels);
+  const d = describeDefinition(row.kind, row.definition ?? null, row.block, row.labels ?? labels);
   if (!d) return null;
   return (
     <span className="mt-0.5 block text-xs text-ink-soft" title={d.title}>

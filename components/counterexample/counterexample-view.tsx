@@ -78,6 +78,8 @@ function Drawing({ c, rule, steps, labels, compact }: { c: KnownCounterexample }
           <span className="font-semibold text-moss-700">{String(c.actual)}</span>
         </p>
       );
+    case "not-exactly-lumpable":
+    case "label-mismatch":
     case "target-mismatch":
       return null;
   }

@@ -32,6 +32,19 @@ describe("describeCounterexample", () => {
     expect(c && describeCounterexample(c)).toBe("Entry (1, 3) is claimed to be 1/8; computed exactly it is 1/4.");
   });
 
+  it("says an exact-lumping failure with the two states of the target block and both column sums", () => {
+    // Hand-built: states 2 and 3 (block 2) receive 1/2 and 1/4 from block 1; DOMAIN.md §2b asks for equal sums.
+    const c = asCounterexample({ kind: "not-exactly-lumpable", block: 0, targetBlock: 1, states: [1, 2], sums: ["1/2", "1/4"] });
+    expect(c && describeCounterexample(c)).toBe(
+      "State 2 and state 3 are both in block 2, but block 1 sends them probability 1/2 and 1/4: the partition is not exactly lumpable.",
+    );
+  });
+
+  it("says which target state carries the wrong label", () => {
+    const c = asCounterexample({ kind: "label-mismatch", state: 0, claimed: "wet", expected: "{N}" });
+    expect(c && describeCounterexample(c)).toBe("State 1 of the target chain is labelled “wet”, but the map requires “{N}”.");
+  });
+
   it("ignores what is not a counterexample", () => {
     expect(asCounterexample({ kind: "something-else" })).toBeNull();
     expect(asCounterexample("not-a-function")).toBeNull();

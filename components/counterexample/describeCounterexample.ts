@@ -9,12 +9,14 @@ export type KnownCounterexample =
   | ({ kind: "coarse-rule-mismatch"; claimed: number } & Witness)
   | { kind: "not-a-function"; first: Witness; second: Witness }
   | { kind: "not-lumpable"; block: number; states: [number, number]; targetBlock: number; sums: [string, string] }
+  | { kind: "not-exactly-lumpable"; block: number; targetBlock: number; states: [number, number]; sums: [string, string] }
+  | { kind: "label-mismatch"; state: number; claimed: string; expected: string }
   | { kind: "lumped-entry-mismatch"; block: number; targetBlock: number; claimed: string; actual: string }
   | { kind: "matrix-entry-mismatch"; row: number; column: number; claimed: string; actual: string }
   | { kind: "table-entry-mismatch"; neighbourhood: number; cells: string; claimed: number; actual: number }
   | { kind: "target-mismatch"; message: string; expected: string; claimed: string };
 
-const KINDS = new Set(["coarse-rule-mismatch", "not-a-function", "not-lumpable", "lumped-entry-mismatch", "matrix-entry-mismatch", "table-entry-mismatch", "target-mismatch"]);
+const KINDS = new Set(["coarse-rule-mismatch", "not-a-function", "not-lumpable", "not-exactly-lumpable", "label-mismatch", "lumped-entry-mismatch", "matrix-entry-mismatch", "table-entry-mismatch", "target-mismatch"]);
 
 export function asCounterexample(value: unknown): KnownCounterexample | null {
   if (!value || typeof value !== "object") return null;
@@ -49,6 +51,13 @@ export function describeCounterexample(c: KnownCounterexample, options: { steps?
         `${cap(stateName(c.states[0], options.labels))} and ${stateName(c.states[1], options.labels)} are both in block ${c.block + 1}, ` +
         `but they move into block ${c.targetBlock + 1} with probability ${c.sums[0]} and ${c.sums[1]}: the partition is not lumpable.`
       );
+    case "not-exactly-lumpable":
+      return (
+        `${cap(stateName(c.states[0], options.labels))} and ${stateName(c.states[1], options.labels)} are both in block ${c.targetBlock + 1}, ` +
+        `but block ${c.block + 1} sends them probability ${c.sums[0]} and ${c.sums[1]}: the partition is not exactly lumpable.`
+      );
+    case "label-mismatch":
+      return `State ${c.state + 1} of the target chain is labelled “${c.claimed}”, but the map requires “${c.expected}”.`;
     case "lumped-entry-mismatch":
       return `The lumped entry from block ${c.block + 1} to block ${c.targetBlock + 1} is claimed to be ${c.claimed}; the common row sum is ${c.actual}.`;
     case "matrix-entry-mismatch":

@@ -18,7 +18,7 @@ const SIGNED_IN_LINKS: NavLink[] = [
   { href: "/chains", label: "Chains" },
   { href: "/jobs", label: "Jobs" },
   { href: "/members", label: "Members" },
-  { href: "/settings/tokens", label: "Tokens" },
+  { href: "/settings/tokens", label: "API tokens" },
   { href: "/api-docs", label: "API" },
 ];
 

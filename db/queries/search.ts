@@ -1,7 +1,7 @@
 import "server-only";
 import { and, asc, desc, eq, gt, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
-import { maps, models, searchRecords, type Model, type SearchRecord } from "@/db/schema";
+import { certificates, maps, models, searchRecords, type Model, type SearchRecord } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
 import type { MapKind, MapView } from "./maps";
@@ -27,7 +27,11 @@ export type AtlasSearch = {
 
 export type AtlasSearchResult =
   | { target: "models"; items: Model[]; nextCursor: string | null }
-  | { target: "maps"; items: MapView[]; nextCursor: string | null };
+  /**
+   * Each map with its projection or partition as JSON text, so that a list can show what the map is,
+   * and the source's state labels as JSON text (a chain's), to name the partition's states.
+   */
+  | { target: "maps"; items: (MapView & { definition: string | null; sourceLabels: string | null })[]; nextCursor: string | null };
 
 function likeEscaped(column: SQL, text: string): SQL {
   const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -172,15 +176,18 @@ async function searchMaps({
         map: maps,
         source: { id: source.id, address: source.address, kind: source.kind, name: source.name, rule: source.rule },
         target: { id: target.id, address: target.address, kind: target.kind, name: target.name, rule: target.rule },
+        definition: sql<string | null>`coalesce(json_extract(${certificates.body}, '$.map.projection'), json_extract(${certificates.body}, '$.map.partition'))`,
+        sourceLabels: sql<string | null>`json_extract(${source.canonical}, '$.labels')`,
       })
       .from(maps)
       .innerJoin(source, eq(source.id, maps.sourceModelId))
       .innerJoin(target, eq(target.id, maps.targetModelId))
+      .innerJoin(certificates, eq(certificates.address, maps.certificateAddress))
       .where(and(...c))
       .orderBy(asc(maps.id))
       .limit(limit + 1)
       .all();
-    const items = rows.slice(0, limit).map((r) => ({ ...r.map, source: r.source, target: r.target }));
+    const items = rows.slice(0, limit).map((r) => ({ ...r.map, source: r.source, target: r.target, definition: r.definition, sourceLabels: r.sourceLabels }));
     const last = items[items.length - 1];
     return { target: "maps", items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null };
   });

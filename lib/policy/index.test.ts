@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { ACTIONS, ROLES, can, isRoleWithin, refusalReason, type Role } from "./index";
+import { ACTIONS, ACTION_WORDS, ROLES, can, isRoleWithin, refusalReason, type Role } from "./index";
 
 /**
  * The role table pinned action by action, written out here (README "Roles": viewer < contributor <
@@ -50,10 +50,18 @@ describe("the role policy, pinned action by action", () => {
     }
   });
 
-  it("names the needed role when it refuses", () => {
-    expect(refusalReason("viewer", "certificate:submit")).toBe('Your role is viewer; "certificate:submit" needs the contributor role or higher.');
-    expect(refusalReason("curator", "member:manage")).toBe('Your role is curator; "member:manage" needs the admin role or higher.');
-    expect(refusalReason(null, "map:retract")).toBe('You are not a member of this workspace; "map:retract" needs the curator role.');
+  it("names the needed role when it refuses, in plain words", () => {
+    expect(refusalReason("viewer", "certificate:submit")).toBe("Your role is viewer; to submit a certificate you need the contributor role or higher.");
+    expect(refusalReason("curator", "member:manage")).toBe("Your role is curator; to manage members you need the admin role or higher.");
+    expect(refusalReason(null, "map:retract")).toBe("You are not a member of this workspace; to retract a map you need the curator role.");
+  });
+
+  it("describes every action in words, never by its identifier", () => {
+    expect(Object.keys(ACTION_WORDS).sort()).toEqual([...ACTIONS].sort());
+    for (const action of ACTIONS) {
+      expect(ACTION_WORDS[action], action).not.toContain(":");
+      expect(refusalReason("viewer", action), action).not.toContain(action);
+    }
   });
 
   it("never lets a grant exceed the owner's role", () => {

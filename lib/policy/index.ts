@@ -59,6 +59,36 @@ export const LEAST_ROLE: Record<Action, Role> = {
   "map:mark-published": "contributor",
 };
 
+/**
+ * What each action lets a person do, in plain words: every place that names an action to a person
+ * (403 page, refusal sentences, token settings) says this, never the identifier.
+ */
+export const ACTION_WORDS: Record<Action, string> = {
+  "atlas:read": "read the atlas",
+  "watch:manage": "manage your watches and notifications",
+  "token:manage": "manage your API tokens",
+  "note:post": "post a note to the team log",
+  "model:create": "add a model",
+  "certificate:submit": "submit a certificate",
+  "chain:submit": "submit a Markov chain",
+  "search:run": "run a search",
+  "job:create": "start a job",
+  "job:cancel-own": "cancel your own jobs",
+  "map:retract": "retract a map",
+  "job:cancel-any": "cancel anyone's job",
+  "member:manage": "manage members",
+  "member:invite": "invite members",
+  "invitation:revoke": "revoke an invitation",
+  "member:change-role": "change a member's role",
+  "member:remove": "remove a member",
+  "workspace:publish": "publish the workspace",
+  "outbox:manage": "manage the mail outbox",
+  "audit:browse": "browse the audit log",
+  "annotation:note": "add a note to a model or map",
+  "annotation:tag": "tag a model or map",
+  "map:mark-published": "mark a map as published",
+};
+
 export function roleRank(role: Role): number {
   return ROLES.indexOf(role);
 }
@@ -71,8 +101,9 @@ export function can(role: Role | null | undefined, action: Action): boolean {
 /** A human sentence for a 403 page or a JSON error: why the action was refused. */
 export function refusalReason(role: Role | null | undefined, action: Action): string {
   const needed = LEAST_ROLE[action];
-  if (!role) return `You are not a member of this workspace; "${action}" needs the ${needed} role.`;
-  return `Your role is ${role}; "${action}" needs the ${needed} role or higher.`;
+  const words = ACTION_WORDS[action];
+  if (!role) return `You are not a member of this workspace; to ${words} you need the ${needed} role.`;
+  return `Your role is ${role}; to ${words} you need the ${needed} role or higher.`;
 }
 
 /** A token or delegated role may never exceed the role of the person who grants it. */

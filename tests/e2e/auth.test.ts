@@ -146,7 +146,7 @@ describe("roles are enforced by the server", () => {
     // The page it is sent to says why, with a 403 status.
     const refusal = await viewer.goto(`${server.url}/forbidden?action=note:post`);
     expect(refusal?.status()).toBe(403);
-    await expect(viewer.locator("main").textContent()).resolves.toContain('Your role is viewer; "note:post" needs the contributor role or higher.');
+    await expect(viewer.locator("main").textContent()).resolves.toContain("Your role is viewer; to post a note to the team log you need the contributor role or higher.");
     await contributor.context().close();
     await viewer.context().close();
   });

@@ -149,4 +149,32 @@ describe("reading and retracting maps", () => {
     const percent = await searchAtlas({ workspaceId: ws, target: "models", q: "%" });
     expect(percent.items).toHaveLength(0);
   });
+
+  it("lists each map with its projection as the certificate states it, so the list can show what the map is", async () => {
+    const input = edgeInput(ws, people.contributor.id, 150, 105);
+    const body = JSON.stringify({ map: { block: 2, projection: [0, 1, 1, 0] } });
+    const made = await createCertifiedEdge({ ...input, certificate: { ...input.certificate, body } });
+    const listed = await searchAtlas({ workspaceId: ws, target: "maps", rule: 150 });
+    const item = listed.items.find((m) => m.id === made.mapId) as { definition: string | null; sourceLabels: string | null } | undefined;
+    expect(item && JSON.parse(item.definition!)).toEqual([0, 1, 1, 0]);
+    expect(item?.sourceLabels).toBeNull(); // an ECA has no state labels
+  });
+
+  it("lists a lumping with its partition and the source chain's state labels", async () => {
+    const labels = ["dry", "damp", "wet"];
+    const canonical = JSON.stringify({ kind: "markov", labels, matrix: [["1/2", "1/4", "1/4"], ["1/3", "1/3", "1/3"], ["1/3", "1/3", "1/3"]] });
+    const lumped = JSON.stringify({ kind: "markov", labels: ["{dry}", "{damp, wet}"], matrix: [["1/2", "1/2"], ["1/3", "2/3"]] });
+    const input = edgeInput(ws, people.contributor.id, 11, 12);
+    const made = await createCertifiedEdge({
+      ...input,
+      certificate: { ...input.certificate, kind: "lumping", body: JSON.stringify({ map: { partition: [0, 1, 1] } }) },
+      source: { address: "sha256:listed-chain", kind: "markov", name: "Listed chain", canonical, states: 3 },
+      target: { address: "sha256:listed-lumped", kind: "markov", name: "Listed chain lumped", canonical: lumped, states: 2 },
+      map: { kind: "lumping", block: null, steps: 1, summary: "Listed chain lumped" },
+    });
+    const listed = await searchAtlas({ workspaceId: ws, target: "maps", mapKind: "lumping", q: "Listed chain" });
+    const item = listed.items.find((m) => m.id === made.mapId) as { definition: string | null; sourceLabels: string | null } | undefined;
+    expect(item && JSON.parse(item.definition!)).toEqual([0, 1, 1]);
+    expect(item && JSON.parse(item.sourceLabels!)).toEqual(labels);
+  });
 });

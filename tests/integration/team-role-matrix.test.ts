@@ -125,7 +125,7 @@ function action<S extends { status: string; message?: string }>(fn: (prev: S, fo
       const state = await fn({ status: "idle" } as S, form);
       if (state.status === "ok") return 200;
       if (/^No |not a member/.test(state.message ?? "")) return 404;
-      if (/needs the .* role/.test(state.message ?? "")) return 403;
+      if (/you need the .* role/.test(state.message ?? "")) return 403;
       return 400;
     } catch (err) {
       const digest = String((err as { digest?: string }).digest ?? "");

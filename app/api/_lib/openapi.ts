@@ -96,7 +96,7 @@ export function openApiDocument() {
   registry.registerComponent("securitySchemes", "bearer", {
     type: "http",
     scheme: "bearer",
-    description: "A personal API token from Settings → API tokens (`Authorization: Bearer sqt_…`).",
+    description: "A personal API token from the API tokens page, /settings/tokens (`Authorization: Bearer sqt_…`).",
   });
   registry.registerComponent("securitySchemes", "session", {
     type: "apiKey",

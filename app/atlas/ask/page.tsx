@@ -13,6 +13,7 @@ import { findPaths, getMap, listSearchRecords, MAX_PATH_DEPTH, type MapView } fr
 import { findModelByText, type ModelLookup } from "@/db/queries/views";
 import type { Model } from "@/db/schema";
 import { getWorkspaceContext } from "@/server/context";
+import { searchKindWords } from "@/components/atlas/searchKindWords";
 
 export const metadata: Metadata = { title: "Ask the atlas" };
 
@@ -127,7 +128,7 @@ async function Answer({ workspaceId, a, b, depth }: { workspaceId: string; a: Mo
           <>
             <p>
               No chain of at most {depth} certified maps leads from {a.name} to {b.name}, and a recorded exhaustive search from {a.name}
-              {answer.maxBlock !== null ? ` over every block size up to N = ${answer.maxBlock}` : ""} ({answer.record.kind}) found{" "}
+              {answer.maxBlock !== null ? ` over every block size up to N = ${answer.maxBlock}` : ""} (<span title={answer.record.kind}>{searchKindWords(answer.record.kind)}</span>) found{" "}
               {answer.record.found} target{answer.record.found === 1 ? "" : "s"}, none of them {b.name}. So: no such coarse-graining within those bounds. Larger block
               sizes are not covered.
             </p>

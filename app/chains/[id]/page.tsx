@@ -14,6 +14,7 @@ import { getCertificate, getChain, getModel } from "@/db/queries/atlas";
 import { getUserById } from "@/db/queries/users";
 import { env } from "@/env";
 import { getWorkspaceContext } from "@/server/context";
+import { VERIFICATION_NAME, VERIFICATION_SENTENCE } from "@/components/atlas/chainVerification";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -27,11 +28,6 @@ export async function generateMetadata({ params }: Props): Promise<Metadata> {
 function product(values: (number | null)[]): number | null {
   return values.length > 0 && values.every((v) => v !== null) ? values.reduce<number>((a, v) => a * (v as number), 1) : null;
 }
-
-const VERIFICATION = {
-  links: "Every link's certificate verified and each link's target is the next link's source exactly. The composite was not checked on its own (it exceeds the size limits); pasting commuting squares suffices mathematically.",
-  "links+composite": "Every link's certificate verified, each link's target is the next link's source exactly, and the composite certificate also verified directly by its own exhaustive check.",
-} as const;
 
 export default async function ChainPage({ params }: Props) {
   const [{ id }, { workspace }] = await Promise.all([params, getWorkspaceContext()]);
@@ -122,11 +118,15 @@ export default async function ChainPage({ params }: Props) {
         </Panel>
         <Panel title="Verification">
           <p className="mb-3">
-            <span className="rounded-md bg-moss-50 px-2 py-1 font-mono text-sm font-semibold text-moss-700 ring-1 ring-moss-700/30" data-verification={chain.verification}>
-              {chain.verification}
+            <span
+              className="rounded-md bg-moss-50 px-2 py-1 text-sm font-semibold text-moss-700 ring-1 ring-moss-700/30"
+              data-verification={chain.verification}
+              title={chain.verification}
+            >
+              {VERIFICATION_NAME[chain.verification]}
             </span>
           </p>
-          <p className="text-sm text-ink-soft">{VERIFICATION[chain.verification]}</p>
+          <p className="text-sm text-ink-soft">{VERIFICATION_SENTENCE[chain.verification]}</p>
           <dl className="mt-4 grid grid-cols-[auto_1fr] gap-x-4 gap-y-1.5 text-sm">
             <dt className="text-ink-faint">Composite</dt>
             <dd className="break-all font-mono text-xs">{composite.address}</dd>

@@ -8,6 +8,7 @@ import { recordCertificateCheck } from "@/db/queries/maps";
 import { runVerification } from "@/server/atlas/pool";
 import { isAppError } from "@/server/errors";
 import { requireAction } from "@/server/context";
+import { checkReason } from "@/components/atlas/checkWords";
 
 const RetractSchema = z.object({
   mapId: z.string().min(1).max(100),
@@ -56,5 +57,5 @@ export async function reverifyMapAction(mapId: string, _state: ReverifyState): P
   revalidatePath(`/atlas/maps/${mapId}`);
   return status === "holds"
     ? { status: "ok", message: "Verified again: the square commutes." }
-    : { status: "error", message: `The check did not confirm the certificate (${status}).` };
+    : { status: "error", message: `The check did not confirm the certificate: ${checkReason(status)}.` };
 }

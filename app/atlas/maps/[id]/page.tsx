@@ -26,6 +26,7 @@ import { getWorkspaceContext } from "@/server/context";
 import { retractMapAction, reverifyMapAction } from "./actions";
 import { ReverifyForm } from "@/components/atlas/reverify-form";
 import { listCertificateChecks } from "@/db/queries/maps";
+import { checkWords } from "@/components/atlas/checkWords";
 
 type Props = { params: Promise<{ id: string }> };
 
@@ -154,7 +155,7 @@ export default async function MapPage({ params }: Props) {
             <ul className="text-xs text-ink-faint">
               {checks.map((c, i) => (
                 <li key={i}>
-                  {formatDate(c.at)}: {c.status === "holds" ? "verified again, the square commutes" : `not confirmed (${c.status})`}
+                  {formatDate(c.at)}: <span title={c.status}>{checkWords(c.status)}</span>
                   {c.checkerVersion ? ` · checker ${c.checkerVersion}` : ""}
                 </li>
               ))}

@@ -28,6 +28,7 @@ import { HeatMap } from "@/components/atlas/heat-map";
 import { formatDate } from "@/components/atlas/formatDate";
 import { LumpRequestForm } from "@/components/atlas/lump-request-form";
 import { StationaryView } from "@/components/atlas/stationary-view";
+import { searchKindWords } from "@/components/atlas/searchKindWords";
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -198,7 +199,9 @@ async function Searches({ workspaceId, modelId }: { workspaceId: string; modelId
     <ul className="divide-y divide-line text-sm">
       {records.map((r) => (
         <li key={r.id} className="flex flex-wrap items-baseline gap-x-3 gap-y-1 py-2">
-          <span className="text-xs font-medium text-ink-soft">{r.kind.replace(/-/g, " ")}</span>
+          <span className="text-xs font-medium text-ink-soft" title={r.kind}>
+            {searchKindWords(r.kind)}
+          </span>
           <span>{r.maxBlock !== null ? <>block sizes up to N = {r.maxBlock}</> : "no block bound"}</span>
           <span className="text-ink-soft">
             {r.found} target{r.found === 1 ? "" : "s"} found
