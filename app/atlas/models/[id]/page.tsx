@@ -28,6 +28,8 @@ import { HeatMap } from "@/components/atlas/heat-map";
 import { formatDate } from "@/components/atlas/formatDate";
 import { LumpRequestForm } from "@/components/atlas/lump-request-form";
 import { StationaryView } from "@/components/atlas/stationary-view";
+import { LumpingComparison } from "@/components/atlas/lumping-comparison";
+import { parseKeepApart } from "@/components/atlas/lumpingComparison";
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -324,6 +326,14 @@ export default async function ModelPage({ params, searchParams }: Props) {
           </Panel>
           <Panel title="Stationary distributions (exact)">
             <StationaryView labels={view.labels} matrix={view.matrix} />
+          </Panel>
+        </div>
+      ) : null}
+
+      {view.type === "markov" ? (
+        <div id="lumpings">
+          <Panel title="Coarsest strong and exact lumpings">
+            <LumpingComparison path={`/atlas/models/${model.id}`} labels={view.labels} matrix={view.matrix} keep={parseKeepApart(query.keep, view.matrix.length)} />
           </Panel>
         </div>
       ) : null}
