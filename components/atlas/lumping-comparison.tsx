@@ -55,14 +55,17 @@ export function LumpingComparison({ path, labels, matrix, keep }: { path: string
         {keep.length === 0 ? (
           <>
             Both start from one block holding every state. Every row of P sums to 1, so from there the coarsest strong lumping is always that single block; the
-            exact one (equal column sums) is not. Keep states apart to see more.
+            exact one (equal column sums) need not be. Keep states apart to see more.
           </>
         ) : (
-          <>Both start with {keep.map((i) => labels[i] ?? i).join(", ")} each in a block of its own and the other states together.</>
+          <>
+            Both start with {keep.map((i) => labels[i] ?? i).join(", ")} {keep.length === 1 ? "in a block of its own" : "each in a block of its own"} and the other
+            states together.
+          </>
         )}
       </p>
       <p className="text-sm font-medium">{comparisonSentence(relation, strong.blocks, exact.blocks)}</p>
-      <div className="grid gap-6 md:grid-cols-2">
+      <div className="grid grid-cols-1 gap-6 md:grid-cols-2">
         <LumpingColumn title="Coarsest strong lumping" source="equal row sums into each block" labels={labels} partition={strong.partition} lumped={format(strong.lumped)} />
         <LumpingColumn title="Coarsest exact lumping" source="equal column sums from each block" labels={labels} partition={exact.partition} lumped={format(exact.lumped)} />
       </div>

@@ -183,7 +183,7 @@ function MapListFilters({ path, side, filters, classes }: { path: string; side: 
 
 function Edges({ workspaceId, model, filters, labels }: { workspaceId: string; model: { id: string; rule: number | null }; filters: ModelMapFilters; labels?: string[] }) {
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
       {/* Rendered with the page (its loading.tsx shows the skeleton): two indexed queries, and the counts in the titles stay in step with the page. */}
       <MapList workspaceId={workspaceId} model={model} side="o" filters={filters} labels={labels} />
       <MapList workspaceId={workspaceId} model={model} side="f" filters={filters} />
@@ -291,7 +291,7 @@ export default async function ModelPage({ params, searchParams }: Props) {
         }
       />
 
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
         <Panel title="Model">
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
             {facts.map(([term, value]) => (
@@ -320,7 +320,7 @@ export default async function ModelPage({ params, searchParams }: Props) {
       ) : null}
 
       {view.type === "markov" ? (
-        <div className="grid gap-6 lg:grid-cols-2">
+        <div className="grid grid-cols-1 gap-6 lg:grid-cols-2">
           <Panel title="Transition matrix as a heat map">
             <HeatMap labels={view.labels} matrix={view.matrix} caption="Darker is more likely; hover a cell for its exact value (row = from, column = to)." />
           </Panel>
