@@ -1,4 +1,5 @@
 import { cellPalette, cssColour } from "@/components/spacetime/palette";
+import { totalisticCode } from "@/lib/ca";
 
 /** Neighbourhood index as base-k digits, x_{-r} the most significant (DOMAIN.md §1). */
 function digits(index: number, k: number, width: number): string {
@@ -97,6 +98,25 @@ export function EcaRuleTable({ rule }: { rule: number }) {
   return <RuleTable k={2} r={1} rule={rule} table={Array.from({ length: 8 }, (_, i) => (rule >> i) & 1)} />;
 }
 
+/** A three-state radius-1 rule that depends only on the sum of its three cells is named by its totalistic code (DOMAIN.md §2b). */
+function TotalisticNote({ code }: { code: number }) {
+  return (
+    <p className="mt-3 text-sm">
+      <span className="font-semibold">Totalistic, code {code}</span>{" "}
+      <span className="text-ink-faint">
+        — the new cell depends only on the sum s = x₋₁ + x₀ + x₁ (0 to 6), and is base-3 digit s of the code (digit 0 last):{" "}
+        <span className="font-mono">{code.toString(3).padStart(7, "0")}</span> read from s = 6 down to s = 0.
+      </span>
+    </p>
+  );
+}
+
 export function CaRuleTable({ k, r, table }: { k: number; r: number; table: number[] }) {
-  return <RuleTable k={k} r={r} table={table} />;
+  const code = totalisticCode({ k, r, table });
+  return (
+    <>
+      <RuleTable k={k} r={r} table={table} />
+      {code !== null ? <TotalisticNote code={code} /> : null}
+    </>
+  );
 }

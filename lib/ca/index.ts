@@ -12,3 +12,4 @@ export type { SpaceTime } from "./spaceTime";
 export { randomRow, singleCellRow, parseRow } from "./spaceTimeRows";
 export { commutingPicture, projectRow } from "./spaceTimePicture";
 export type { CommutingPicture, CommutingPictureInput } from "./spaceTimePicture";
+export { totalisticCode } from "./totalisticCode";

@@ -29,6 +29,8 @@ import { formatDate } from "@/components/atlas/formatDate";
 import { LumpRequestForm } from "@/components/atlas/lump-request-form";
 import { StationaryView } from "@/components/atlas/stationary-view";
 import { searchKindWords } from "@/components/atlas/searchKindWords";
+import { LumpingComparison } from "@/components/atlas/lumping-comparison";
+import { parseKeepApart } from "@/components/atlas/lumpingComparison";
 
 type Props = { params: Promise<{ id: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> };
 
@@ -182,7 +184,7 @@ function MapListFilters({ path, side, filters, classes }: { path: string; side: 
 
 function Edges({ workspaceId, model, filters, labels }: { workspaceId: string; model: { id: string; rule: number | null }; filters: ModelMapFilters; labels?: string[] }) {
   return (
-    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+    <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
       {/* Rendered with the page (its loading.tsx shows the skeleton): two indexed queries, and the counts in the titles stay in step with the page. */}
       <MapList workspaceId={workspaceId} model={model} side="o" filters={filters} labels={labels} />
       <MapList workspaceId={workspaceId} model={model} side="f" filters={filters} />
@@ -292,7 +294,7 @@ export default async function ModelPage({ params, searchParams }: Props) {
         }
       />
 
-      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(0,1.4fr)]">
         <Panel title="Model">
           <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-2 text-sm">
             {facts.map(([term, value]) => (
@@ -321,12 +323,20 @@ export default async function ModelPage({ params, searchParams }: Props) {
       ) : null}
 
       {view.type === "markov" ? (
-        <div className="grid gap-6 lg:grid-cols-2">
+        <div className="grid grid-cols-1 gap-6 lg:grid-cols-2">
           <Panel title="Transition matrix as a heat map">
             <HeatMap labels={view.labels} matrix={view.matrix} caption="Darker is more likely; hover a cell for its exact value (row = from, column = to)." />
           </Panel>
           <Panel title="Stationary distributions (exact)">
             <StationaryView labels={view.labels} matrix={view.matrix} />
+          </Panel>
+        </div>
+      ) : null}
+
+      {view.type === "markov" ? (
+        <div id="lumpings">
+          <Panel title="Coarsest strong and exact lumpings">
+            <LumpingComparison path={`/atlas/models/${model.id}`} labels={view.labels} matrix={view.matrix} keep={parseKeepApart(query.keep, view.matrix.length)} />
           </Panel>
         </div>
       ) : null}
