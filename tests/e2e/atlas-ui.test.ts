@@ -103,8 +103,10 @@ describe("the atlas as a theorist sees it", () => {
     await page.goto(`${server.url}/atlas?q=3%20states`);
     await page.click("table tbody a");
     await page.waitForURL(/\/atlas\/models\//);
-    await page.locator("table.font-mono").waitFor();
-    const cells = await page.locator("table.font-mono tbody td").allTextContents();
+    // The transition matrix itself (the page also shows the lumped matrices of its coarsest lumpings).
+    const matrix = page.getByRole("table", { name: /Transition matrix P, exact/ });
+    await matrix.waitFor();
+    const cells = await matrix.locator("tbody td").allTextContents();
     expect(cells).toEqual(["12", "14", "14", "14", "12", "14", "14", "14", "12"]);
     // The maps panel streams in after the page (Suspense): wait for it rather than count at once.
     await page.getByText("Coarse-grains onto (1)").waitFor();
