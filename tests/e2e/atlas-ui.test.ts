@@ -36,11 +36,7 @@ async function certify(key: string, build: BuildRequest) {
   mapIds[key] = stored.mapId;
 }
 
-function person(role: string) {
-  const found = server.people.find((p) => p.role === role);
-  if (!found) throw new Error(`no demo ${role}`);
-  return found;
-}
+const person = (role: string) => server.person(role);
 
 async function signedIn(role: string): Promise<Page> {
   const who = person(role);

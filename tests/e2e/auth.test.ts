@@ -17,11 +17,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-function person(role: string) {
-  const found = server.people.find((p) => p.role === role);
-  if (!found) throw new Error(`no demo ${role}`);
-  return found;
-}
+const person = (role: string) => server.person(role);
 
 async function newPage(): Promise<Page> {
   const context = await browser.newContext();

@@ -18,11 +18,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-function person(role: string) {
-  const found = server.people.find((p) => p.role === role);
-  if (!found) throw new Error(`no demo ${role}`);
-  return found;
-}
+const person = (role: string) => server.person(role);
 
 async function signedIn(role: string): Promise<Page> {
   const page = await (await browser.newContext()).newPage();

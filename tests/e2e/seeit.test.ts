@@ -18,11 +18,7 @@ const ONTO_ZERO = (demoAtlas as DemoMap[]).filter((m) => m.source.kind === "eca"
 let server: TestServer;
 let browser: Browser;
 
-function person(role: string) {
-  const found = server.people.find((p) => p.role === role);
-  if (!found) throw new Error(`no demo ${role}`);
-  return found;
-}
+const person = (role: string) => server.person(role);
 
 /** Builds and verifies a certificate with the core's checker, then stores it as the server does. */
 async function certify(build: BuildRequest) {

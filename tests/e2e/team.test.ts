@@ -11,11 +11,7 @@ let browser: Browser;
 /** Set SHOTS_DIR to keep screenshots of the pages this test visits (never committed). */
 const SHOTS = process.env.SHOTS_DIR;
 
-function person(role: string) {
-  const found = server.people.find((p) => p.role === role);
-  if (!found) throw new Error(`no demo ${role}`);
-  return found;
-}
+const person = (role: string) => server.person(role);
 
 async function signedIn(role: string): Promise<Page> {
   const who = person(role);

@@ -9,11 +9,7 @@ let server: TestServer;
 let browser: Browser;
 const SHOTS = "/tmp/shots-workbench";
 
-function person(role: string) {
-  const found = server.people.find((p) => p.role === role);
-  if (!found) throw new Error(`no demo ${role}`);
-  return found;
-}
+const person = (role: string) => server.person(role);
 
 async function signedIn(role: string, width = 1366): Promise<Page> {
   const who = person(role);

@@ -15,6 +15,8 @@ export type TestServer = {
   url: string;
   db: Database;
   people: (DemoPerson & { id: string })[];
+  /** The demo person holding `role` (throws when there is none). */
+  person: (role: string) => DemoPerson & { id: string };
   workspace: { id: string; slug: string; name: string };
   mailDir: string;
   readMail: () => Promise<CaughtMessage[]>;
@@ -116,5 +118,10 @@ export async function startTestServer(): Promise<TestServer> {
     await waitFor("a caught message", async () => Boolean((found = (await readMail()).find(match))), timeoutMs, logs);
     return found as CaughtMessage;
   };
-  return { url, db, people, workspace, mailDir, readMail, waitForMail, logs, stop };
+  const person = (role: string) => {
+    const found = people.find((p) => p.role === role);
+    if (!found) throw new Error(`no demo ${role}`);
+    return found;
+  };
+  return { url, db, people, person, workspace, mailDir, readMail, waitForMail, logs, stop };
 }
