@@ -77,7 +77,8 @@ export default function ApiDocsPage() {
               {op.summary ? <p className="mt-2 text-sm font-medium text-ink">{op.summary}</p> : null}
               {op.description ? <p className="mt-1 text-sm text-ink-soft">{op.description}</p> : null}
               {op.parameters?.length ? (
-                <table className="mt-3 w-full text-left text-sm">
+                <div className="mt-3 overflow-x-auto">
+                <table className="w-full text-left text-sm">
                   <caption className="sr-only">Parameters of {method.toUpperCase()} {path}</caption>
                   <thead>
                     <tr className="text-ink-soft">
@@ -101,6 +102,7 @@ export default function ApiDocsPage() {
                     ))}
                   </tbody>
                 </table>
+                </div>
               ) : null}
               {op.requestBody ? (
                 <p className="mt-3 text-sm">

@@ -45,6 +45,8 @@ export function MapTable({ rows, otherHeading, empty, labels }: { rows: MapRow[]
   if (rows.length === 0) return <p className="text-sm text-ink-faint">{empty}</p>;
   const withSource = rows.some((r) => r.from);
   return (
+    // Wide symbol strings scroll inside the table on a phone instead of widening the page.
+    <div className="overflow-x-auto">
     <table className="w-full border-collapse text-sm">
       <thead>
         <tr className="border-b border-line-strong text-left text-xs text-ink-faint">
@@ -85,5 +87,6 @@ export function MapTable({ rows, otherHeading, empty, labels }: { rows: MapRow[]
         ))}
       </tbody>
     </table>
+    </div>
   );
 }
