@@ -1,6 +1,6 @@
 import "server-only";
 import { createCertifiedEdge, createChain, getCertificate, getMap, upsertModel } from "@/db/queries/atlas";
-import { findMapIdByCertificate } from "@/db/queries/maps";
+import { findMapIdByCertificate, type CertifiedEdgeInput } from "@/db/queries/maps";
 import type { Model } from "@/db/schema";
 import { env } from "@/env";
 import { AppError } from "@/server/errors";
@@ -39,14 +39,17 @@ export async function submitBuild({
   workspaceId,
   userId,
   build,
+  onStep,
 }: {
   workspaceId: string;
   userId: string;
   build: BuildRequest;
+  /** Called after each step of the write, inside its transaction (fault-injection tests only). */
+  onStep?: CertifiedEdgeInput["onStep"];
 }): Promise<SubmitResult> {
   const owner = admit(build, "build", { workspaceId, userId });
   const verified = requireHolds(await runVerification({ op: "build", build }, VERIFY_LIMITS, owner), "build");
-  return store({ workspaceId, userId, verified });
+  return store({ workspaceId, userId, verified, onStep });
 }
 
 /** Stores a model once (canonical form, content address); the same model again is the same row. */
@@ -109,12 +112,14 @@ async function store({
   verified,
   derivedFromMapId = null,
   derivation = null,
+  onStep,
 }: {
   workspaceId: string;
   userId: string;
   verified: Verified;
   derivedFromMapId?: string | null;
   derivation?: Derivation | null;
+  onStep?: CertifiedEdgeInput["onStep"];
 }) {
   return createCertifiedEdge({
     workspaceId,
@@ -133,6 +138,7 @@ async function store({
     linkBase: env.APP_URL,
     derivedFromMapId,
     derivation,
+    onStep,
   });
 }
 

@@ -1,8 +1,7 @@
 import { env } from "@/env";
 import { getDatabase } from "@/db/queries/connection";
-import { sendMail } from "@/server/mail/send";
-import { createOutboxDelivery, type OutboxDelivery } from "@/server/mail/outbox";
-import { queueDigests } from "@/server/mail/digest";
+import { startMailDelivery } from "@/server/mail/delivery";
+import type { OutboxDelivery } from "@/server/mail/outbox";
 import { createJobRunner, type JobRunner } from "./job-runner";
 import "./kinds";
 
@@ -28,9 +27,7 @@ async function start(): Promise<Started> {
     runner = createJobRunner({ db, workers: env.JOB_WORKERS, leaseMs: env.JOB_LEASE_MS });
     await runner.start();
   }
-  const outbox = createOutboxDelivery({ db, send: sendMail, messageIdDomain: new URL(env.APP_URL).hostname, beforePass: queueDigests });
-  outbox.start();
-  void outbox.deliverDue().catch((err) => console.error("mail outbox:", err));
+  const outbox = startMailDelivery({ db });
   const jobs = runner ? `${env.JOB_WORKERS} job worker thread(s)` : env.JOB_QUEUE === "bullmq" ? "jobs on BullMQ (worker processes)" : "no job workers";
   console.log(`job runner: ${jobs}; mail outbox delivery started`);
   return { runner, outbox };
