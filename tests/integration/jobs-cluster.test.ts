@@ -2,32 +2,45 @@ import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { jobs, type Job } from "@/db/schema";
+import { addWatchRule } from "@/db/queries/watches";
+import { jobs, notificationOutbox, type Job } from "@/db/schema";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { startNode, type NodeProcess } from "@/tests/support/cluster";
+import { freePort } from "@/tests/support/ports";
 import { startRedis, type TestRedis } from "@/tests/support/redis";
-import { seedPeople, waitFor } from "./jobs-fixtures";
+import { lumpableBuild } from "@/tests/support/lumpable-build";
+import { seedPeople, waitFor, type People } from "./jobs-fixtures";
+import { startTestSmtp } from "./watch-smtp";
 
 /** Short, so that a takeover is quick to test; the app's default is 30 s. */
 const LEASE_MS = 4_000;
 const JOB_COUNT = 100;
+const MAP_COUNT = 100;
 
 describe.each(["in-process", "bullmq"] as const)("two app processes on one database, %s queue", (mode) => {
   let t: TestDatabase;
   let redis: TestRedis | null = null;
   let apps: NodeProcess[] = [];
   let workers: NodeProcess[] = [];
+  let smtp: Awaited<ReturnType<typeof startTestSmtp>>;
+  let smtpPort: number;
   let ws: string;
   let owners: string[];
+  let people: People;
 
   beforeAll(async () => {
     t = await createTestDatabase();
     const seeded = await seedPeople(t.db);
     ws = seeded.workspace.id;
+    people = seeded.people;
     owners = Object.values(seeded.people).map((p) => p.id);
     if (mode === "bullmq") redis = await startRedis();
+    smtpPort = await freePort();
+    smtp = await startTestSmtp(smtpPort);
     const env = {
       DATABASE_URL: t.url,
+      SMTP_HOST: "127.0.0.1",
+      SMTP_PORT: String(smtpPort),
       JOB_QUEUE: mode,
       ...(redis ? { REDIS_URL: redis.url } : {}),
       JOB_LEASE_MS: String(LEASE_MS),
@@ -41,6 +54,7 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
   afterAll(async () => {
     await Promise.all([...apps, ...workers].map((p) => p.stop()));
     await redis?.stop();
+    await smtp?.close();
     t?.cleanup();
   });
 
@@ -55,7 +69,7 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
     return (await res.json()) as { id: string };
   };
 
-  it(`runs each of ${JOB_COUNT} jobs submitted through both processes exactly once`, async () => {
+  it(`runs each of ${JOB_COUNT} jobs submitted through both processes exactly once`, { timeout: 300_000 }, async () => {
     const runLog = join(t.dir, "runs.log");
     const ids: string[] = [];
     for (let batch = 0; batch < JOB_COUNT; batch += 10) {
@@ -76,6 +90,54 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
     for (const j of done) byRunner.set(j.leaseOwner ?? "?", (byRunner.get(j.leaseOwner ?? "?") ?? 0) + 1);
     console.log(`${mode}: ${JOB_COUNT} jobs, each run once; jobs per runner: ${[...byRunner.values()].join(", ")}`);
   });
+
+  it(`certifies ${MAP_COUNT} watched maps through both processes and mails each watcher once per map`, async () => {
+    // Three watchers of every Markov chain; the two certifiers are never mailed about their own maps.
+    const watchers = [people.viewer, people.curator, people.admin];
+    for (const w of watchers) await addWatchRule({ db: t.db, workspaceId: ws, userId: w.id, scope: "class", modelKind: "markov" });
+    const certifiers = [people.contributor.id, people.otherContributor.id];
+    const mapIds: string[] = [];
+    for (let batch = 0; batch < MAP_COUNT; batch += 10) {
+      const made = await Promise.all(
+        Array.from({ length: 10 }, (_, k) => batch + k).map(async (i) => {
+          const res = await fetch(`http://127.0.0.1:${apps[i % 2].port}/certify`, {
+            method: "POST",
+            body: JSON.stringify({ workspaceId: ws, userId: certifiers[i % 2], build: lumpableBuild(1_000 + i) }),
+          });
+          expect(res.status).toBe(201);
+          const stored = (await res.json()) as { status: string; mapId: string };
+          expect(stored.status).toBe("created");
+          return stored.mapId;
+        }),
+      );
+      mapIds.push(...made);
+    }
+    expect(new Set(mapIds).size).toBe(MAP_COUNT);
+    const expected = mapIds.flatMap((mapId) => watchers.map((w) => `${w.email} ${mapId}`)).sort();
+
+    const outbox = await waitFor(
+      () => t.db.select().from(notificationOutbox),
+      (rows) => rows.length === expected.length && rows.every((r) => r.status === "sent"),
+      180_000,
+    );
+    // Several more delivery passes of both processes (every 500 ms): a second copy would come now.
+    await new Promise((r) => setTimeout(r, 3_000));
+    const byMessageId = new Map(outbox.map((row) => [`<outbox.${row.id}@localhost>`, row]));
+    const got = smtp.received.map((m) => {
+      const mapId = mapIds.find((id) => m.text.includes(`/atlas/maps/${id}`)) ?? "?";
+      expect(byMessageId.get(m.messageId ?? "")?.mapId).toBe(mapId);
+      expect(m.to).toHaveLength(1);
+      return `${m.to[0]} ${mapId}`;
+    });
+    expect(got.sort()).toEqual(expected);
+    expect(new Set(smtp.received.map((m) => m.messageId)).size).toBe(expected.length);
+
+    // Both processes delivered: the claims split the outbox between them rather than one doing it all.
+    const mailedBy = apps.map((app) => (app.output().match(/^mailed /gm) ?? []).length);
+    expect(mailedBy.reduce((a, b) => a + b, 0)).toBe(expected.length);
+    expect(mailedBy.every((n) => n > 0)).toBe(true);
+    console.log(`${mode}: ${MAP_COUNT} maps certified through two processes, ${expected.length} mails each received once; sent per process: ${mailedBy.join(", ")}`);
+  }, 360_000);
 
   it("takes over (or fails with a reason) a job whose worker was killed with SIGKILL mid-job; it is never lost", async () => {
     const runLog = join(t.dir, "long.log");
