@@ -109,6 +109,27 @@ export async function listJobQueueState(
   return { queued, running };
 }
 
+/**
+ * Jobs that should be somewhere in a queue but are held by no runner: queued since before
+ * `queuedBefore`, or running under a lapsed lease. Oldest first (the BullMQ sweep checks each).
+ */
+export async function listUnheldJobs(
+  { db = getDatabase(), ...input }: { db?: Executor } & { queuedBefore: Date; now?: Date; limit: number },
+): Promise<Job[]> {
+  const now = input.now ?? new Date();
+  return db
+    .select()
+    .from(jobs)
+    .where(
+      or(
+        and(eq(jobs.status, "queued"), lt(jobs.createdAt, input.queuedBefore)),
+        and(eq(jobs.status, "running"), leaseLapsed(now)),
+      ),
+    )
+    .orderBy(asc(jobs.createdAt), asc(jobs.id))
+    .limit(input.limit);
+}
+
 export type Lease = { owner: string; leaseMs: number; now?: Date };
 
 const leaseUntil = (lease: Lease) => new Date((lease.now ?? new Date()).getTime() + lease.leaseMs);

@@ -1,9 +1,8 @@
-import { Queue } from "bullmq";
 import type { Database } from "@/db/client";
 import type { Job } from "@/db/schema";
-import { countActiveJobs, finishJob } from "@/db/queries/jobs";
+import { finishJob } from "@/db/queries/jobs";
 import { AppError } from "@/server/errors";
-import { BULLMQ_QUEUE_NAMES, redisConnection, type BullmqJobData } from "./bullmq-lanes";
+import { addToLane, openBullmqLanes } from "./bullmq-lanes";
 import { admitJob, cancelJob, getJobView, listJobViews } from "./in-process-queue";
 import { toJobView, type JobQueue } from "./queue";
 
@@ -19,20 +18,11 @@ export type BullmqJobQueue = JobQueue & { close(): Promise<void> };
  */
 export function createBullmqQueue(options: BullmqQueueOptions): BullmqJobQueue {
   const { db } = options;
-  const connection = redisConnection(options.redisUrl);
-  const lanes = {
-    small: new Queue<BullmqJobData>(BULLMQ_QUEUE_NAMES.small, { connection }),
-    large: new Queue<BullmqJobData>(BULLMQ_QUEUE_NAMES.large, { connection }),
-  };
+  const lanes = openBullmqLanes(options.redisUrl);
 
   async function dispatch(job: Job): Promise<void> {
     try {
-      await lanes[job.lane].add(job.kind, { jobId: job.id }, {
-        jobId: job.id,
-        priority: await fairPriority(db, job),
-        removeOnComplete: true,
-        removeOnFail: 1000,
-      });
+      await addToLane(db, lanes, job);
     } catch (err) {
       console.error(`job ${job.id}: could not reach the job queue:`, err);
       await finishJob({ db, id: job.id, status: "failed", error: "the job queue (Redis) could not be reached; nothing ran" });
@@ -55,17 +45,7 @@ export function createBullmqQueue(options: BullmqQueueOptions): BullmqJobQueue {
     get: (input) => getJobView({ db, ...input }),
     list: (input) => listJobViews({ db, input }),
     async close() {
-      await Promise.all([lanes.small.close(), lanes.large.close()]);
+      await lanes.close();
     },
   };
-}
-
-/**
- * BullMQ serves a lane by priority (lower first) and then in order: a job's priority grows with the
- * jobs its workspace and its owner already have queued or running, so a workspace with one job is
- * served before the tenth job of another.
- */
-async function fairPriority(db: Database, job: Job): Promise<number> {
-  const { workspace, owner } = await countActiveJobs({ db, workspaceId: job.workspaceId, ownerId: job.ownerId });
-  return Math.min(2_000_000, workspace + owner);
 }

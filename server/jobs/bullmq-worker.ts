@@ -2,7 +2,8 @@ import { Worker, type Job as BullmqJob } from "bullmq";
 import type { Database } from "@/db/client";
 import type { Job } from "@/db/schema";
 import { claimJob, failLapsedJob, getJob, takeOverLapsedJob } from "@/db/queries/jobs";
-import { BULLMQ_QUEUE_NAMES, redisConnection, type BullmqJobData } from "./bullmq-lanes";
+import { BULLMQ_QUEUE_NAMES, openBullmqLanes, redisConnection, type BullmqJobData } from "./bullmq-lanes";
+import { sweepLostJobs } from "./bullmq-sweep";
 import { createJobExecutor, type JobExecutorOptions } from "./executor";
 import { largeJobCap } from "./fairness";
 import { MAX_JOB_ATTEMPTS } from "./job-runner";
@@ -11,6 +12,8 @@ export type BullmqWorkerOptions = Omit<JobExecutorOptions, "workers"> & {
   redisUrl: string;
   /** Worker threads in all: large jobs get `largeJobCap(workers)` of them, small jobs the rest (at least one). */
   workers: number;
+  /** How often this process sweeps for jobs BullMQ lost (bullmq-sweep.ts). @default the lease */
+  sweepMs?: number;
 };
 
 export type BullmqJobWorker = { owner: string; close(): Promise<void> };
@@ -19,7 +22,8 @@ export type BullmqJobWorker = { owner: string; close(): Promise<void> };
  * A worker process's side of the BullMQ queue: one BullMQ Worker per lane, whose lock (renewed by
  * BullMQ, `lockDuration` = the lease) and stalled-job check bring a job whose process died back to
  * another worker; the jobs table row is claimed under the same lease, so a job runs in one place at
- * a time. A job stalled a second time is failed by BullMQ, and its row with a reason here.
+ * a time. A job stalled a second time is failed by BullMQ, and its row with a reason here. Every
+ * `sweepMs` the process also looks for rows that BullMQ no longer holds and dispatches or fails them.
  */
 export async function startBullmqWorker(options: BullmqWorkerOptions): Promise<BullmqJobWorker> {
   const { db } = options;
@@ -49,10 +53,12 @@ export async function startBullmqWorker(options: BullmqWorkerOptions): Promise<B
     worker.on("error", (err) => console.error("job worker:", err.message));
   }
   await Promise.all(workers.map((w) => w.waitUntilReady()));
+  const sweeper = startSweeper(db, options.redisUrl, leaseMs, options.sweepMs ?? leaseMs);
 
   return {
     owner: executor.owner,
     async close() {
+      await sweeper.stop();
       await Promise.all(workers.map((w) => w.close()));
       await executor.stop();
     },
@@ -84,4 +90,31 @@ async function claimForRun(db: Database, id: string, owner: string, leaseMs: num
     if (Date.now() > deadline) return null;
     await new Promise((r) => setTimeout(r, 250));
   }
+}
+
+/** Sweeps for lost jobs now and every `intervalMs`, one sweep at a time. */
+function startSweeper(db: Database, redisUrl: string, graceMs: number, intervalMs: number) {
+  const lanes = openBullmqLanes(redisUrl);
+  let sweeping: Promise<unknown> | null = null;
+  const sweep = () => {
+    sweeping ??= sweepLostJobs({ db, lanes, graceMs })
+      .then((report) => {
+        if (report.redispatched.length + report.failed.length === 0) return;
+        console.log(`job sweep: ${report.redispatched.length} lost job(s) dispatched again, ${report.failed.length} failed`);
+      })
+      .catch((err: Error) => console.error("job sweep:", err.message))
+      .finally(() => {
+        sweeping = null;
+      });
+  };
+  sweep();
+  const timer = setInterval(sweep, intervalMs);
+  timer.unref();
+  return {
+    async stop() {
+      clearInterval(timer);
+      await sweeping;
+      await lanes.close();
+    },
+  };
 }
