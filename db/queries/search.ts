@@ -66,9 +66,11 @@ async function searchModels({
 }: AtlasSearch): Promise<AtlasSearchResult> {
   return withDb("searching models", async () => {
     const c: SQL[] = [eq(models.workspaceId, workspaceId)];
-    if (q) c.push(q.startsWith("sha256:") ? eq(models.address, q) : or(likeEscaped(sql`${models.name}`, q), likeEscaped(sql`${models.description}`, q))!);
+    const short = q ? shortTerm(q) : null;
+    if (short) c.push(or(sql`${models}.rowid IN (SELECT rowid FROM models_words WHERE models_words MATCH ${short})`, likeEscaped(sql`${models.description}`, q!))!);
+    else if (q) c.push(q.startsWith("sha256:") ? eq(models.address, q) : or(likeEscaped(sql`${models.name}`, q), likeEscaped(sql`${models.description}`, q))!);
     // Descriptions are not in the trigram index: only a term that no description holds may use it.
-    const byName = q && !q.startsWith("sha256:") ? await modelNameCandidates(db, workspaceId, q) : null;
+    const byName = q && !short && !q.startsWith("sha256:") ? await modelNameCandidates(db, workspaceId, q) : null;
     if (byName) c.push(sql`${models}.rowid IN (SELECT value FROM json_each(${JSON.stringify(byName)}))`);
     if (rule !== undefined) c.push(eq(models.rule, rule));
     if (symmetryClass !== undefined) c.push(eq(models.symmetryClass, symmetryClass));
@@ -103,6 +105,37 @@ async function modelNameCandidates(db: Executor, workspaceId: string, q: string)
   if (Number(described.n) > 0) return null;
   const rows = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${TRIGRAM_CANDIDATES + 1}`);
   return rows.length > TRIGRAM_CANDIDATES ? null : rows.map((row) => Number(row.r));
+}
+
+/**
+ * A term of one or two letters or digits, which the trigram indexes cannot serve, as an FTS5 query
+ * for the word indexes (drizzle/0006_short-search.sql): "a word begins with q". Such a term matches
+ * the start of a word rather than any part of the text (inside words, one or two characters match
+ * nearly everything). Null for any other term.
+ */
+function shortTerm(q: string): string | null {
+  return [...q].length <= 2 && /^[\p{L}\p{N}]+$/u.test(q) ? `"${q}"*` : null;
+}
+
+/**
+ * The rowids of the maps whose summary, or either end's name, has a word beginning with the short
+ * term `match`, from the word indexes; null when there are more than TRIGRAM_CANDIDATES (a common
+ * term: the search then walks the maps in order and stops at the page's end).
+ */
+async function wordCandidates(db: Executor, workspaceId: string, match: string): Promise<number[] | null> {
+  const cap = TRIGRAM_CANDIDATES + 1;
+  const bySummary = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_words WHERE maps_words MATCH ${match} LIMIT ${cap}`);
+  if (bySummary.length > TRIGRAM_CANDIDATES) return null;
+  const byName = await db.all<{ r: number }>(
+    sql`SELECT rowid AS r FROM maps WHERE workspace_id = ${workspaceId} AND (
+          source_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
+            AND rowid IN (SELECT rowid FROM models_words WHERE models_words MATCH ${match} LIMIT ${cap}))
+          OR target_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
+            AND rowid IN (SELECT rowid FROM models_words WHERE models_words MATCH ${match} LIMIT ${cap})))
+        LIMIT ${cap}`,
+  );
+  const rowids = new Set([...bySummary, ...byName].map((row) => Number(row.r)));
+  return rowids.size > TRIGRAM_CANDIDATES ? null : [...rowids];
 }
 
 const source = alias(models, "s");
@@ -151,13 +184,22 @@ async function searchMaps({
   cursor,
 }: AtlasSearch): Promise<AtlasSearchResult> {
   return withDb("searching maps", async () => {
-    const candidates = q && !q.startsWith("sha256:") ? await trigramCandidates(db, workspaceId, q) : null;
+    const short = q ? shortTerm(q) : null;
+    const candidates = short
+      ? await wordCandidates(db, workspaceId, short)
+      : q && !q.startsWith("sha256:")
+        ? await trigramCandidates(db, workspaceId, q)
+        : null;
     if (candidates && candidates.length === 0) return { target: "maps", items: [], nextCursor: null };
     const c: SQL[] = [eq(maps.workspaceId, workspaceId)];
     if (!includeRetracted) c.push(eq(maps.status, "certified"));
     // One JSON parameter rather than thousands of placeholders: the statement is prepared per request.
     if (candidates) c.push(sql`${maps}.rowid IN (SELECT value FROM json_each(${JSON.stringify(candidates)}))`);
-    if (q) {
+    if (short && !candidates) {
+      // A common short term: each list is built once, and the walk in map order stops at the page's end.
+      const words = sql`(SELECT rowid FROM models_words WHERE models_words MATCH ${short})`;
+      c.push(or(sql`${maps}.rowid IN (SELECT rowid FROM maps_words WHERE maps_words MATCH ${short})`, sql`${source}.rowid IN ${words}`, sql`${target}.rowid IN ${words}`)!);
+    } else if (q && !short) {
       c.push(
         q.startsWith("sha256:")
           ? eq(maps.certificateAddress, q)

@@ -4,7 +4,7 @@ import { Cursor, Limit, MapKind, MapOut, ModelKind, ModelOut, SmallInt } from ".
 
 export const Query = z.object({
   target: z.enum(["models", "maps"]).default("models").meta({ description: "List models (nodes) or maps (edges)." }),
-  q: z.string().trim().max(200).optional().meta({ description: "Part of a name or summary, or a full `sha256:` address." }),
+  q: z.string().trim().max(200).optional().meta({ description: "Part of a name or summary, or a full `sha256:` address. A term of one or two letters or digits matches the beginning of a word." }),
   rule: z.coerce.number().int().min(0).max(255).optional().meta({ description: "ECA rule number (of the source, for maps)." }),
   symmetryClass: z.coerce.number().int().min(0).max(255).optional(),
   tag: z.string().trim().min(1).max(100).optional(),
