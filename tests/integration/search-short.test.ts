@@ -95,7 +95,10 @@ describe("searching with a term of one or two characters", () => {
   });
 
   it("lists models by a word of their name, or by their description as before", async () => {
-    const models = async (q: string) => (await searchAtlas({ workspaceId: "lab", target: "models", q, limit: 500 })).items.map((m) => m.name).sort();
+    const models = async (q: string) => {
+      const page = await searchAtlas({ workspaceId: "lab", target: "models", q, limit: 500 });
+      return page.target === "models" ? page.items.map((m) => m.name).sort() : [];
+    };
     const byName = (q: string) => [...names.values(), "Dingo"].filter((n) => startsAWord(n, q)).sort();
     expect(await models("qu")).toEqual(byName("qu"));
     expect(await models("re")).toEqual(["Quokka-relay 107", "Quokka-relay 207", "Quokka-relay 7"]);
