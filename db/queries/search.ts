@@ -117,27 +117,6 @@ function shortTerm(q: string): string | null {
   return [...q].length <= 2 && /^[\p{L}\p{N}]+$/u.test(q) ? `"${q}"*` : null;
 }
 
-/**
- * The rowids of the maps whose summary, or either end's name, has a word beginning with the short
- * term `match`, from the word indexes; null when there are more than TRIGRAM_CANDIDATES (a common
- * term: the search then walks the maps in order and stops at the page's end).
- */
-async function wordCandidates(db: Executor, workspaceId: string, match: string): Promise<number[] | null> {
-  const cap = TRIGRAM_CANDIDATES + 1;
-  const bySummary = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_words WHERE maps_words MATCH ${match} LIMIT ${cap}`);
-  if (bySummary.length > TRIGRAM_CANDIDATES) return null;
-  const byName = await db.all<{ r: number }>(
-    sql`SELECT rowid AS r FROM maps WHERE workspace_id = ${workspaceId} AND (
-          source_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
-            AND rowid IN (SELECT rowid FROM models_words WHERE models_words MATCH ${match} LIMIT ${cap}))
-          OR target_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
-            AND rowid IN (SELECT rowid FROM models_words WHERE models_words MATCH ${match} LIMIT ${cap})))
-        LIMIT ${cap}`,
-  );
-  const rowids = new Set([...bySummary, ...byName].map((row) => Number(row.r)));
-  return rowids.size > TRIGRAM_CANDIDATES ? null : [...rowids];
-}
-
 const source = alias(models, "s");
 const target = alias(models, "t");
 
@@ -146,23 +125,44 @@ const TRIGRAM_CANDIDATES = 4000;
 
 /**
  * The rowids of the maps whose summary, or either end's name, contains `q`, from the trigram
- * indexes (drizzle/0002_search-trigrams.sql): a few milliseconds where the LIKE scan of every map
+ * indexes (drizzle/0005_search-trigrams.sql): a few milliseconds where the LIKE scan of every map
  * of a large atlas took hundreds. Null when the index cannot answer (fewer than three characters,
  * or a LIKE wildcard or escape in `q`, which the index does not serve) or the term is common.
  */
 async function trigramCandidates(db: Executor, workspaceId: string, q: string): Promise<number[] | null> {
   if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
   const pattern = `%${q}%`;
+  return candidateMaps(db, workspaceId, {
+    summaries: sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern}`,
+    names: sql`SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern}`,
+  });
+}
+
+/**
+ * The rowids of the maps whose summary, or either end's name, has a word beginning with the short
+ * term `match`, from the word indexes; null when the term is common (the search then walks the
+ * maps in order and stops at the page's end).
+ */
+function wordCandidates(db: Executor, workspaceId: string, match: string): Promise<number[] | null> {
+  return candidateMaps(db, workspaceId, {
+    summaries: sql`SELECT rowid AS r FROM maps_words WHERE maps_words MATCH ${match}`,
+    names: sql`SELECT rowid FROM models_words WHERE models_words MATCH ${match}`,
+  });
+}
+
+/**
+ * The maps among the index hits `summaries` (map rowids as r) or with an end among `names` (model
+ * rowids), at most TRIGRAM_CANDIDATES of them; null when there are more.
+ */
+async function candidateMaps(db: Executor, workspaceId: string, hits: { summaries: SQL; names: SQL }): Promise<number[] | null> {
   const cap = TRIGRAM_CANDIDATES + 1;
-  const bySummary = await db.all<{ r: number }>(sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern} LIMIT ${cap}`);
+  const bySummary = await db.all<{ r: number }>(sql`${hits.summaries} LIMIT ${cap}`);
   if (bySummary.length > TRIGRAM_CANDIDATES) return null;
   // Subqueries, not joins: joined, SQLite walks the workspace's rows and probes the index per row.
   const byName = await db.all<{ r: number }>(
     sql`SELECT rowid AS r FROM maps WHERE workspace_id = ${workspaceId} AND (
-          source_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
-            AND rowid IN (SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${cap}))
-          OR target_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId}
-            AND rowid IN (SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern} LIMIT ${cap})))
+          source_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId} AND rowid IN (${hits.names} LIMIT ${cap}))
+          OR target_model_id IN (SELECT id FROM models WHERE workspace_id = ${workspaceId} AND rowid IN (${hits.names} LIMIT ${cap})))
         LIMIT ${cap}`,
   );
   const rowids = new Set([...bySummary, ...byName].map((row) => Number(row.r)));
