@@ -27,6 +27,10 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
   let ws: string;
   let owners: string[];
   let people: People;
+  let env: Record<string, string>;
+  /** Starts one more process of the kind that holds jobs under this queue: an app (in-process) or a worker (BullMQ). */
+  let startHolder: () => Promise<NodeProcess>;
+  const killed = new Set<NodeProcess>();
 
   beforeAll(async () => {
     t = await createTestDatabase();
@@ -37,7 +41,7 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
     if (mode === "bullmq") redis = await startRedis();
     smtpPort = await freePort();
     smtp = await startTestSmtp(smtpPort);
-    const env = {
+    env = {
       DATABASE_URL: t.url,
       SMTP_HOST: "127.0.0.1",
       SMTP_PORT: String(smtpPort),
@@ -49,6 +53,11 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
     const appWorkers = mode === "in-process" ? "2" : "0";
     apps = await Promise.all([startNode("app", { ...env, JOB_WORKERS: appWorkers }), startNode("app", { ...env, JOB_WORKERS: appWorkers })]);
     if (mode === "bullmq") workers = await Promise.all([startNode("worker", { ...env, JOB_WORKERS: "2" }), startNode("worker", { ...env, JOB_WORKERS: "2" })]);
+    startHolder = async () => {
+      const node = await startNode(mode === "in-process" ? "app" : "worker", { ...env, JOB_WORKERS: "2" });
+      (mode === "in-process" ? apps : workers).push(node);
+      return node;
+    };
   }, 240_000);
 
   afterAll(async () => {
@@ -148,6 +157,7 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
     expect(holder).toBeDefined();
     const killedAt = Date.now();
     await holder!.killHard();
+    killed.add(holder!);
 
     const finished = await waitFor(() => row(job.id), (j) => j.status !== "queued" && j.status !== "running", 120_000);
     const takeoverMs = finished.startedAt ? finished.startedAt.getTime() - killedAt : NaN;
@@ -164,4 +174,31 @@ describe.each(["in-process", "bullmq"] as const)("two app processes on one datab
       expect(finished.error).toMatch(/worker stopped \d+ times/);
     }
   });
+
+  it("fails with the reason, never loses, a job whose runner is killed (SIGKILL) twice", async () => {
+    // Two live holders: the one the last test killed is replaced.
+    while ((mode === "in-process" ? apps : workers).filter((p) => !killed.has(p)).length < 2) await startHolder();
+    const holders = () => (mode === "in-process" ? apps : workers).filter((p) => !killed.has(p));
+    const via = apps.find((p) => !killed.has(p))!;
+    const runLog = join(t.dir, "twice.log");
+    const job = await submit(via, { steps: 300, stepMs: 100, runLog, mark: "twice" }, owners[1]);
+    const first = await waitFor(() => row(job.id), (j) => j.status === "running" && j.progress > 0.02, 60_000);
+    const firstHolder = holders().find((p) => p.owner === first.leaseOwner)!;
+    await firstHolder.killHard();
+    killed.add(firstHolder);
+    const second = await waitFor(() => row(job.id), (j) => j.status === "running" && j.attempts === 2 && j.progress > 0.02, 120_000);
+    const secondHolder = holders().find((p) => p.owner === second.leaseOwner)!;
+    expect(secondHolder).toBeDefined();
+    await secondHolder.killHard();
+    killed.add(secondHolder);
+    // Nobody holds jobs now; the next process to start finds the job's lease lapsed and its attempts spent.
+    const killedAt = Date.now();
+    await startHolder();
+    const finished = await waitFor(() => row(job.id), (j) => j.status !== "queued" && j.status !== "running", 120_000);
+    console.log(`${mode}: a job whose runner was killed twice ended ${finished.status} ${finished.finishedAt!.getTime() - killedAt} ms after the second kill: ${finished.error}`);
+    expect(finished.status).toBe("failed");
+    expect(finished.attempts).toBe(2);
+    expect(finished.error).toBe("its worker stopped 2 times before the job finished (lease expired); not retried again");
+    expect(readFileSync(runLog, "utf8").trim().split("\n")).toEqual(["twice", "twice"]);
+  }, 360_000);
 });
