@@ -1,10 +1,13 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { eq } from "drizzle-orm";
+import { Worker } from "bullmq";
 import { Redis } from "ioredis";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createJobWithinLimit } from "@/db/queries/jobs";
 import { jobs, type Job } from "@/db/schema";
+import { BULLMQ_QUEUE_NAMES, openBullmqLanes, redisConnection } from "@/server/jobs/bullmq-lanes";
+import { sweepLostJobs } from "@/server/jobs/bullmq-sweep";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 import { startNode, type NodeProcess } from "@/tests/support/cluster";
 import { startRedis, type TestRedis } from "@/tests/support/redis";
@@ -106,5 +109,74 @@ describe("BullMQ lost-job sweep: one app process and two worker processes on one
     expect(done.status).toBe("failed");
     expect(done.error).toBe("its worker stopped 2 times before the job finished (lease expired); not retried again");
     expect(() => readFileSync(runLog)).toThrow();
+  });
+});
+
+describe("sweepLostJobs, row by row, against a real Redis with no worker running", () => {
+  let t: TestDatabase;
+  let redis: TestRedis;
+  let lanes: ReturnType<typeof openBullmqLanes>;
+  let ws: string;
+  let ownerId: string;
+
+  beforeAll(async () => {
+    t = await createTestDatabase();
+    const seeded = await seedPeople(t.db);
+    ws = seeded.workspace.id;
+    ownerId = seeded.people.contributor.id;
+    redis = await startRedis();
+    lanes = openBullmqLanes(redis.url);
+  }, 60_000);
+
+  afterAll(async () => {
+    await lanes?.close();
+    await redis?.stop();
+    t?.cleanup();
+  });
+
+  const GRACE_MS = 60_000;
+  const now = new Date();
+  const ago = (ms: number) => new Date(now.getTime() - ms);
+  /** A job row of the test kind, changed as given (no BullMQ job yet). */
+  const jobRow = async (mark: string, change: Partial<Job>) => {
+    const created = await createJobWithinLimit({ db: t.db, workspaceId: ws, ownerId, kind: "test-sleep-and-count", params: { steps: 1, stepMs: 0, mark }, limit: 100 });
+    if (!created.ok) throw new Error("not admitted");
+    const [row] = await t.db.update(jobs).set(change).where(eq(jobs.id, created.job.id)).returning();
+    return row;
+  };
+
+  it("dispatches again what BullMQ lost, fails what had its attempts, and leaves alone what is held or on its way", async () => {
+    // BullMQ gave up on this one (its processor failed) while its row stayed running under a lease that lapsed.
+    const gaveUp = await jobRow("gave-up", { status: "running", attempts: 1, leaseOwner: "gone", leaseExpiresAt: ago(5_000), createdAt: ago(120_000) });
+    await lanes.large.add(gaveUp.kind, { jobId: gaveUp.id }, { jobId: gaveUp.id, removeOnFail: 1000 });
+    const failing = new Worker(BULLMQ_QUEUE_NAMES.large, async () => Promise.reject(new Error("processor failed")), { connection: redisConnection(redis.url) });
+    await waitFor(() => lanes.large.getJobState(gaveUp.id), (state) => state === "failed", 30_000);
+    await failing.close();
+
+    const neverAdded = await jobRow("never-added", { createdAt: ago(120_000) });
+    const waiting = await jobRow("waiting", { createdAt: ago(120_000) });
+    await lanes.large.add(waiting.kind, { jobId: waiting.id }, { jobId: waiting.id });
+    const justWritten = await jobRow("just-written", { createdAt: ago(1_000) });
+    const spent = await jobRow("spent", { status: "running", attempts: 2, leaseOwner: "gone", leaseExpiresAt: ago(5_000), createdAt: ago(120_000) });
+    const held = await jobRow("held", { status: "running", attempts: 1, leaseOwner: "alive", leaseExpiresAt: new Date(now.getTime() + 30_000), createdAt: ago(120_000) });
+
+    const report = await sweepLostJobs({ db: t.db, lanes, graceMs: GRACE_MS, now });
+    expect(report.redispatched.sort()).toEqual([gaveUp.id, neverAdded.id].sort());
+    expect(report.failed).toEqual([spent.id]);
+
+    const live = ["waiting", "prioritized"];
+    expect(live).toContain(await lanes.large.getJobState(gaveUp.id));
+    expect(live).toContain(await lanes.large.getJobState(neverAdded.id));
+    expect(live).toContain(await lanes.large.getJobState(waiting.id));
+    expect(await lanes.large.getJobState(justWritten.id)).toBe("unknown");
+    expect(await lanes.large.getJobState(held.id)).toBe("unknown");
+    const byId = new Map((await t.db.select().from(jobs)).map((j) => [j.id, j]));
+    expect(byId.get(spent.id)!.status).toBe("failed");
+    expect(byId.get(spent.id)!.error).toBe("its worker stopped 2 times before the job finished (lease expired); not retried again");
+    expect(byId.get(gaveUp.id)!.status).toBe("running"); // the worker that receives it takes it over
+    expect(byId.get(held.id)!.leaseOwner).toBe("alive");
+
+    // A second sweep finds each lost job on its way now: nothing more to do.
+    expect(await sweepLostJobs({ db: t.db, lanes, graceMs: GRACE_MS, now })).toEqual({ redispatched: [], failed: [] });
   });
 });
