@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo } from "react";
+import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import ReactFlow, {
   Background,
@@ -8,6 +8,7 @@ import ReactFlow, {
   Handle,
   MarkerType,
   MiniMap,
+  Panel,
   Position,
   type Edge,
   type Node,
@@ -56,6 +57,8 @@ export function AtlasGraph({
   minimap?: boolean;
 }) {
   const router = useRouter();
+  // The overview starts folded: open, it covers nodes of a wide drawing (it did at 1366 px).
+  const [overview, setOverview] = useState(false);
   const nodes = useMemo<Node<NodeData>[]>(
     () =>
       layout.nodes.map((n) => ({
@@ -99,7 +102,30 @@ export function AtlasGraph({
       >
         <Background gap={24} color="#dcd8cc" />
         <Controls showInteractive={false} />
-        {minimap ? <MiniMap pannable zoomable nodeColor="#7fb9b0" maskColor="rgba(246,244,238,0.7)" /> : null}
+        {minimap ? (
+          <Panel position="top-right">
+            <button
+              type="button"
+              aria-pressed={overview}
+              onClick={() => setOverview((v) => !v)}
+              className="rounded-md border border-line-strong bg-paper-raised px-2.5 py-1 text-xs font-medium text-tide-800 shadow-sm hover:border-tide-600"
+            >
+              {overview ? "Hide the overview" : "Show an overview"}
+            </button>
+          </Panel>
+        ) : null}
+        {minimap && overview ? (
+          <MiniMap
+            position="top-right"
+            pannable
+            zoomable
+            ariaLabel="Overview of the whole drawing"
+            nodeColor="#7fb9b0"
+            maskColor="rgba(246,244,238,0.7)"
+            style={{ width: 160, height: 110, marginTop: 44 }}
+            className="!border !border-line-strong"
+          />
+        ) : null}
       </ReactFlow>
     </div>
   );

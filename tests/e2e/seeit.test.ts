@@ -9,7 +9,7 @@ import { maps, models, workspaces } from "@/db/schema";
 import { symmetryClass } from "@/lib/symmetry";
 import { DEFAULT_LIMITS } from "@/lib/verify";
 import { runVerifyTask, type BuildRequest } from "@/server/atlas/verify-task";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, signedInPage, startTestServer, type TestServer } from "@/tests/support";
 import demoAtlas from "@/lib/ca/fixtures/demo-atlas-projections.json";
 
 type DemoMap = { source: { kind: string; rule: number }; target: { kind: string; rule?: number }; block: number; steps: number; projection: number[] };
@@ -34,16 +34,7 @@ async function certify(build: BuildRequest) {
   });
 }
 
-async function signedIn(role: string): Promise<Page> {
-  const who = person(role);
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", who.email);
-  await page.fill("#password", who.password);
-  await page.click("form button[type=submit]");
-  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
-  return page;
-}
+const signedIn = (role: string): Promise<Page> => signedInPage(browser, server.url, person(role), { width: 1366 });
 
 async function modelId(name: string, workspaceId = server.workspace.id): Promise<string> {
   const [row] = await server.db.select().from(models).where(and(eq(models.workspaceId, workspaceId), eq(models.name, name)));

@@ -1,10 +1,9 @@
-import { mkdirSync } from "node:fs";
 import { and, eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { notificationOutbox, notifications } from "@/db/schema";
 import { DEMO_WORKSPACE } from "@/db/seed/people";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, screenshotWidths, signedInPage, startTestServer, type TestServer } from "@/tests/support";
 
 let server: TestServer;
 let browser: Browser;
@@ -13,25 +12,10 @@ const SHOTS = process.env.SHOTS_DIR;
 
 const person = (role: string) => server.person(role);
 
-async function signedIn(role: string): Promise<Page> {
-  const who = person(role);
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", who.email);
-  await page.fill("#password", who.password);
-  await page.click("form button[type=submit]");
-  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
-  return page;
-}
+const signedIn = (role: string): Promise<Page> => signedInPage(browser, server.url, person(role), { width: 1366 });
 
 async function shoot(page: Page, name: string): Promise<void> {
-  if (!SHOTS) return;
-  mkdirSync(SHOTS, { recursive: true });
-  for (const width of [1366, 390]) {
-    await page.setViewportSize({ width, height: 900 });
-    await page.screenshot({ path: `${SHOTS}/${name}-${width}.png`, fullPage: true });
-  }
-  await page.setViewportSize({ width: 1366, height: 900 });
+  if (SHOTS) await screenshotWidths(page, SHOTS, name);
 }
 
 /** A JSON request from the signed-in page itself (same origin, its session cookie). */
