@@ -17,7 +17,7 @@ export const metadata: Metadata = { title: "Workspace home" };
 
 const COUNTS = [
   { key: "models", label: "Models", href: "/atlas" },
-  { key: "maps", label: "Certified maps", href: "/atlas" },
+  { key: "maps", label: "Certified maps", href: "/atlas?view=maps" },
   { key: "chains", label: "Chains", href: "/chains" },
   { key: "jobs", label: "Jobs", href: "/jobs" },
 ] as const;

@@ -72,9 +72,9 @@ export default async function NotificationsPage({ searchParams }: Props) {
         ) : null}
       </div>
       <div className="grid items-start gap-6 lg:grid-cols-[1.6fr_1fr]">
-        <Panel title={page.cursor ? "What you watch: older notifications" : "What you watch: certified and retracted"}>
+        <Panel title={page.cursor ? "Older notifications" : "Certified and retracted maps you watch"}>
           {page.items.length === 0 ? (
-            <p className="text-sm text-ink-soft">Nothing yet. Watch a model, a class or a search, and what gets certified appears here.</p>
+            <p className="text-sm text-ink-soft">Nothing yet. Watch a model, a class or a search, and what gets certified or retracted there appears here.</p>
           ) : (
             <ul className="divide-y divide-line" aria-label="Notifications">
               {page.items.map((n) => (

@@ -20,12 +20,37 @@ function MapLine({ m }: { m: RecentMapLine }) {
   );
 }
 
+const START = [
+  { href: "/chains/workbench", text: "Draw a model and a map in the workbench", then: "the server checks the square and stores the certificate." },
+  { href: "/jobs", text: "Start a search job", then: "for instance every coarse-graining of the 256 ECAs up to block 3." },
+  { href: "/atlas/exchange", text: "Import an exported atlas", then: "every certificate in it is checked again." },
+];
+
+/** An empty workspace says where a first certified map comes from. */
+function GettingStarted() {
+  return (
+    <div className="text-sm text-ink-soft">
+      <p>No certified map yet. A first one comes from any of these:</p>
+      <ul className="mt-2 list-disc space-y-1 pl-5">
+        {START.map((s) => (
+          <li key={s.href}>
+            <Link href={s.href} className="font-medium text-tide-700 underline-offset-2 hover:underline">
+              {s.text}
+            </Link>
+            : {s.then}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
+
 /**
  * The newest certified maps and chains. Maps onto the constant rules (ECA 0, ECA 255) are folded into
  * one line that opens: nearly every rule has them, and listed one by one they hide the rest.
  */
 export function RecentCertified({ maps, constant, chains }: { maps: RecentMapLine[]; constant: { count: number; recent: RecentMapLine[] }; chains: RecentChainLine[] }) {
-  if (maps.length === 0 && chains.length === 0 && constant.count === 0) return <p className="text-sm text-ink-soft">No certified map yet.</p>;
+  if (maps.length === 0 && chains.length === 0 && constant.count === 0) return <GettingStarted />;
   return (
     <ul className="divide-y divide-line" aria-label="Recently certified">
       {maps.map((m) => (
