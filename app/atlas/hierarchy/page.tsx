@@ -93,7 +93,7 @@ async function Hierarchy({ workspaceId, view }: { workspaceId: string; view: Vie
           </Link>
         </p>
       ) : (
-        <p className="text-sm text-ink-soft">Drag to pan, scroll to zoom; pick a class below to see only its ancestors and descendants.</p>
+        <p className="text-sm text-ink-soft">Drag to pan, scroll or pinch to zoom; pick a class below to see only its ancestors and descendants.</p>
       )}
       {drawn.length > 0 ? (
         <AtlasGraph layout={layout} height={focused ? height : Math.max(height, 560)} readableZoom={focused ? 0.1 : 0.6} minimap={!focused} />
