@@ -57,7 +57,7 @@ export function WatchButton({ modelId, initial }: { modelId: string; initial?: O
         {data ? <span className="text-xs font-normal opacity-80">({data.watchers})</span> : null}
       </button>
       <span className="text-xs text-ink-soft" aria-live="polite">
-        {error ?? (watching ? "You get mail when a certified map touches this model." : "")}
+        {error ?? (watching ? "You hear of every map certified or retracted at this model." : "")}
       </span>
       <a href="/notifications" className="text-xs text-tide-700 underline">
         Watch a class or a search instead

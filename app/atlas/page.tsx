@@ -17,6 +17,17 @@ export const metadata: Metadata = { title: "Atlas" };
 
 type View = "models" | "maps";
 
+/** One click to each class of model: the 256 ECAs otherwise fill the first pages and hide the chains. */
+const KIND_CHIPS: { kind: ModelKind | undefined; label: string }[] = [
+  { kind: undefined, label: "every model" },
+  { kind: "markov", label: "Markov chains" },
+  { kind: "eca", label: "ECAs" },
+  { kind: "ca", label: "1-D CAs" },
+  { kind: "supercell", label: "supercells" },
+  { kind: "iterate", label: "iterates" },
+  { kind: "decimated-chain", label: "decimated chains" },
+];
+
 /** A JSON list of strings (a chain's state labels), or undefined when the text is not one. */
 function stringList(text: string | null): string[] | undefined {
   if (!text) return undefined;
@@ -135,6 +146,21 @@ export default async function AtlasPage({ searchParams }: { searchParams: Promis
           </Link>
         ))}
       </div>
+      {view === "models" ? (
+        <nav aria-label="Model class" className="flex flex-wrap items-center gap-1 text-sm">
+          <span className="mr-1 text-ink-faint">Show:</span>
+          {KIND_CHIPS.map((c) => (
+            <Link
+              key={c.label}
+              href={atlasHref({ ...kept, kind: c.kind, view: "models" })}
+              aria-current={c.kind === filters.kind ? "page" : undefined}
+              className={`rounded-md px-2.5 py-1 ${c.kind === filters.kind ? "bg-tide-700 text-paper-raised" : "text-tide-700 hover:bg-tide-50"}`}
+            >
+              {c.label}
+            </Link>
+          ))}
+        </nav>
+      ) : null}
       <section className="rounded-[var(--radius-card)] border border-line bg-paper-raised p-4" aria-live="polite">
         <Suspense key={JSON.stringify({ filters, view })} fallback={<Skeleton lines={8} label="Loading the atlas" />}>
           <Results workspaceId={workspace.id} filters={filters} view={view} />

@@ -2,11 +2,12 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { NoteForm } from "@/components/dashboard/note-form";
 import { ActivityList } from "@/components/dashboard/activity-list";
+import { RecentCertified } from "@/components/dashboard/recent-certified";
 import { Panel } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { listMembers } from "@/db/queries/memberships";
 import { describeWatch, listWorkspaceWatches } from "@/db/queries/watches";
-import { getWorkspaceSummary, listActiveJobs, listRecentChains, listRecentMaps } from "@/db/queries/workspaces";
+import { countConstantTargetMaps, getWorkspaceSummary, listActiveJobs, listRecentChains, listRecentMaps } from "@/db/queries/workspaces";
 import { can, refusalReason } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
 import { getJobKind } from "@/server/jobs";
@@ -16,20 +17,20 @@ export const metadata: Metadata = { title: "Workspace home" };
 
 const COUNTS = [
   { key: "models", label: "Models", href: "/atlas" },
-  { key: "maps", label: "Certified maps", href: "/atlas" },
+  { key: "maps", label: "Certified maps", href: "/atlas?view=maps" },
   { key: "chains", label: "Chains", href: "/chains" },
   { key: "jobs", label: "Jobs", href: "/jobs" },
 ] as const;
 
-const DAY = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
-
 export default async function DashboardPage() {
   const { user, workspace, role } = await getWorkspaceContext();
-  const [summary, members, log, recent, chains, running, watches] = await Promise.all([
+  const [summary, members, log, recent, constantRecent, constantCount, chains, running, watches] = await Promise.all([
     getWorkspaceSummary({ workspaceId: workspace.id }),
     listMembers({ workspaceId: workspace.id }),
     readableLog({ workspaceId: workspace.id, limit: 15 }),
-    listRecentMaps({ workspaceId: workspace.id, limit: 6 }),
+    listRecentMaps({ workspaceId: workspace.id, limit: 6, constantTargets: "exclude" }),
+    listRecentMaps({ workspaceId: workspace.id, limit: 5, constantTargets: "only" }),
+    countConstantTargetMaps({ workspaceId: workspace.id }),
     listRecentChains({ workspaceId: workspace.id, limit: 4 }),
     listActiveJobs({ workspaceId: workspace.id, limit: 5 }),
     listWorkspaceWatches({ workspaceId: workspace.id }),
@@ -63,31 +64,7 @@ export default async function DashboardPage() {
       <div className="grid gap-6 lg:grid-cols-[1.6fr_1fr]">
         <div className="min-w-0 space-y-6">
           <Panel title="Recently certified">
-            {recent.length === 0 && chains.length === 0 ? (
-              <p className="text-sm text-ink-soft">No certified map yet.</p>
-            ) : (
-              <ul className="divide-y divide-line">
-                {recent.map((m) => (
-                  <li key={m.id} className="flex flex-wrap items-baseline justify-between gap-x-3 py-2">
-                    <Link href={`/atlas/maps/${m.id}`} className="min-w-0 text-sm font-medium text-tide-800 hover:underline">
-                      {m.sourceName} → {m.targetName}, {m.kind}
-                      {m.block ? ` at block ${m.block}` : ""}
-                    </Link>
-                    <span className="text-xs text-ink-faint">
-                      {m.authorName ?? "someone"} · {DAY.format(m.createdAt)}
-                    </span>
-                  </li>
-                ))}
-                {chains.map((c) => (
-                  <li key={c.id} className="flex flex-wrap items-baseline justify-between gap-x-3 py-2">
-                    <span className="text-sm font-medium">Chain “{c.name}”</span>
-                    <span className="text-xs text-ink-faint">
-                      {c.authorName ?? "someone"} · {DAY.format(c.createdAt)}
-                    </span>
-                  </li>
-                ))}
-              </ul>
-            )}
+            <RecentCertified maps={recent} constant={{ count: constantCount, recent: constantRecent }} chains={chains} />
           </Panel>
           <Panel title="Workspace log">
             {can(role, "note:post") ? (

@@ -33,7 +33,7 @@ export async function setDeliveryAction(_prev: FormState, form: FormData): Promi
   if (!parsed.success) return { status: "error", message: parsed.error.issues[0].message };
   await setMailDelivery({ workspaceId: workspace.id, userId: user.id, delivery: parsed.data });
   revalidatePath("/notifications");
-  const said = { immediate: "You get one mail per certified result you watch.", digest: "You get one digest mail a day.", off: "You get no watch mail; notifications still appear here." };
+  const said = { immediate: "You get one mail per certified or retracted map you watch.", digest: "You get one digest mail a day.", off: "You get no watch mail; notifications still appear here." };
   return { status: "ok", message: said[parsed.data] };
 }
 

@@ -8,7 +8,9 @@ import { getMailDelivery } from "@/db/queries/memberships";
 import { countUnreadNotifications, listNotifications } from "@/db/queries/notifications";
 import { describeWatch, listWorkspaceWatches } from "@/db/queries/watches";
 import { listPublicModels } from "@/db/queries/workspaces";
+import { CursorPager } from "@/components/atlas/cursor-pager";
 import { getWorkspaceContext } from "@/server/context";
+import { isAppError } from "@/server/errors";
 import { addWatchAction, markAllReadAction, removeWatchAction, setDeliveryAction } from "./actions";
 
 export const metadata: Metadata = { title: "Notifications" };
@@ -23,11 +25,26 @@ function when(d: Date): string {
   return d.toISOString().slice(0, 16).replace("T", " ") + " UTC";
 }
 
-export default async function NotificationsPage() {
-  const { user, workspace } = await getWorkspaceContext();
+const PAGE = 25;
+
+type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+/** A page of notifications; a cursor this server did not give out starts again at the first page. */
+async function notificationPage(where: { workspaceId: string; userId: string }, cursor: string | undefined) {
+  try {
+    return { ...(await listNotifications({ ...where, limit: PAGE, cursor })), cursor };
+  } catch (err) {
+    if (!cursor || !isAppError(err) || err.code !== "bad_input") throw err;
+    return { ...(await listNotifications({ ...where, limit: PAGE })), cursor: undefined };
+  }
+}
+
+export default async function NotificationsPage({ searchParams }: Props) {
+  const [{ user, workspace }, params] = await Promise.all([getWorkspaceContext(), searchParams]);
   const where = { workspaceId: workspace.id, userId: user.id };
-  const [items, unread, delivery, watches, models] = await Promise.all([
-    listNotifications(where),
+  const asked = typeof params.cursor === "string" && params.cursor.length <= 500 ? params.cursor : undefined;
+  const [page, unread, delivery, watches, models] = await Promise.all([
+    notificationPage(where, asked),
     countUnreadNotifications(where),
     getMailDelivery(where),
     listWorkspaceWatches(where),
@@ -55,12 +72,12 @@ export default async function NotificationsPage() {
         ) : null}
       </div>
       <div className="grid items-start gap-6 lg:grid-cols-[1.6fr_1fr]">
-        <Panel title="Certified results you watch">
-          {items.length === 0 ? (
-            <p className="text-sm text-ink-soft">Nothing yet. Watch a model, a class or a search, and what gets certified appears here.</p>
+        <Panel title={page.cursor ? "Older notifications" : "Certified and retracted maps you watch"}>
+          {page.items.length === 0 ? (
+            <p className="text-sm text-ink-soft">Nothing yet. Watch a model, a class or a search, and what gets certified or retracted there appears here.</p>
           ) : (
             <ul className="divide-y divide-line" aria-label="Notifications">
-              {items.map((n) => (
+              {page.items.map((n) => (
                 <li key={n.id} className={`flex gap-3 py-3 ${n.readAt ? "" : "font-medium"}`}>
                   <span aria-hidden className={`mt-1.5 size-2 shrink-0 rounded-full ${n.readAt ? "bg-transparent" : "bg-saffron-400"}`} />
                   <span className="min-w-0">
@@ -74,6 +91,9 @@ export default async function NotificationsPage() {
               ))}
             </ul>
           )}
+          <div className="mt-3">
+            <CursorPager filters={{ cursor: page.cursor }} nextCursor={page.nextCursor} base="/notifications" />
+          </div>
         </Panel>
         <div className="space-y-6">
           <Panel title="Mail">

@@ -45,8 +45,9 @@ export function MapTable({ rows, otherHeading, empty, labels }: { rows: MapRow[]
   if (rows.length === 0) return <p className="text-sm text-ink-faint">{empty}</p>;
   const withSource = rows.some((r) => r.from);
   return (
-    // Wide symbol strings scroll inside the table on a phone instead of widening the page.
-    <div className="overflow-x-auto">
+    // Wide symbol strings scroll inside the table on a phone instead of widening the page; `relative` keeps
+    // the screen-reader-only heading (absolutely placed) inside the scroller too.
+    <div className="relative overflow-x-auto">
     <table className="w-full border-collapse text-sm">
       <thead>
         <tr className="border-b border-line-strong text-left text-xs text-ink-faint">
@@ -79,7 +80,7 @@ export function MapTable({ rows, otherHeading, empty, labels }: { rows: MapRow[]
               <StatusBadge status={row.status} />
             </td>
             <td className="py-1.5 text-right">
-              <Link href={`/atlas/maps/${row.id}`} className="text-xs text-ink-faint underline-offset-2 hover:underline">
+              <Link href={`/atlas/maps/${row.id}`} className="whitespace-nowrap text-xs text-ink-faint underline-offset-2 hover:underline">
                 certificate →
               </Link>
             </td>

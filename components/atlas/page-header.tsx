@@ -17,7 +17,7 @@ export function PageHeader({
         <h1 className="mt-1 text-3xl font-semibold tracking-tight text-tide-900">{title}</h1>
         {lead ? <p className="mt-2 max-w-3xl text-sm text-ink-soft">{lead}</p> : null}
       </div>
-      {actions ? <div className="flex flex-wrap items-center gap-2">{actions}</div> : null}
+      {actions ? <div className="flex flex-wrap items-start gap-2">{actions}</div> : null}
     </header>
   );
 }

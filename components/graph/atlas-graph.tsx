@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo } from "react";
+import { useMemo, useState } from "react";
 import { useRouter } from "next/navigation";
 import ReactFlow, {
   Background,
@@ -56,6 +56,8 @@ export function AtlasGraph({
   minimap?: boolean;
 }) {
   const router = useRouter();
+  // The overview starts folded: open, it covers nodes of a wide drawing (it did at 1366 px).
+  const [overview, setOverview] = useState(false);
   const nodes = useMemo<Node<NodeData>[]>(
     () =>
       layout.nodes.map((n) => ({
@@ -84,23 +86,50 @@ export function AtlasGraph({
   );
 
   return (
-    <div className="rounded-lg border border-line-strong bg-paper" style={{ height }}>
-      <ReactFlow
-        nodes={nodes}
-        edges={edges}
-        nodeTypes={nodeTypes}
-        nodesDraggable={false}
-        nodesConnectable={false}
-        fitView
-        fitViewOptions={{ padding: 0.08, minZoom: readableZoom }}
-        minZoom={0.1}
-        onNodeClick={(_, node) => node.data.href && router.push(node.data.href)}
-        onEdgeClick={(_, edge) => edge.data?.href && router.push(edge.data.href)}
-      >
-        <Background gap={24} color="#dcd8cc" />
-        <Controls showInteractive={false} />
-        {minimap ? <MiniMap pannable zoomable nodeColor="#7fb9b0" maskColor="rgba(246,244,238,0.7)" /> : null}
-      </ReactFlow>
+    <div className="overflow-hidden rounded-lg border border-line-strong bg-paper">
+      {minimap ? (
+        // The overview toggle sits above the drawing, so that neither it nor the folded overview covers a node.
+        <div className="flex justify-end border-b border-line bg-paper-raised px-2 py-1.5">
+          <button
+            type="button"
+            aria-pressed={overview}
+            onClick={() => setOverview((v) => !v)}
+            className="rounded-md border border-line-strong bg-paper-raised px-2.5 py-1 text-xs font-medium text-tide-800 hover:border-tide-600"
+          >
+            {overview ? "Hide the overview" : "Show an overview"}
+          </button>
+        </div>
+      ) : null}
+      <div style={{ height }}>
+        <ReactFlow
+          nodes={nodes}
+          edges={edges}
+          nodeTypes={nodeTypes}
+          nodesDraggable={false}
+          nodesConnectable={false}
+          fitView
+          // Room at the edges: the zoom controls in the lower left must not cover the outer nodes.
+          fitViewOptions={{ padding: 0.16, minZoom: readableZoom }}
+          minZoom={0.1}
+          onNodeClick={(_, node) => node.data.href && router.push(node.data.href)}
+          onEdgeClick={(_, edge) => edge.data?.href && router.push(edge.data.href)}
+        >
+          <Background gap={24} color="#dcd8cc" />
+          <Controls showInteractive={false} />
+          {minimap && overview ? (
+            <MiniMap
+              position="top-right"
+              pannable
+              zoomable
+              ariaLabel="Overview of the whole drawing"
+              nodeColor="#7fb9b0"
+              maskColor="rgba(246,244,238,0.7)"
+              style={{ width: 160, height: 110 }}
+              className="!border !border-line-strong"
+            />
+          ) : null}
+        </ReactFlow>
+      </div>
     </div>
   );
 }

@@ -12,7 +12,7 @@ const select = "block w-full rounded-md border border-line-strong bg-paper-raise
 export function DeliveryForm({ current, action }: { current: string; action: Action }) {
   const [state, formAction] = useActionState(action, { status: "idle" } as FormState);
   const options = [
-    ["immediate", "One mail per certified result"],
+    ["immediate", "One mail per certified or retracted map"],
     ["digest", "One digest mail a day"],
     ["off", "No mail (notifications here only)"],
   ];

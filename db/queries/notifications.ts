@@ -1,17 +1,48 @@
 import "server-only";
-import { and, asc, count, desc, eq, inArray, isNull, lte } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, isNull, lte, sql } from "drizzle-orm";
 import { memberships, notificationOutbox, notifications, users, type Notification } from "../schema";
 import { getDatabase, withDb, type Executor } from "./connection";
+import { decodeCursor, encodeCursor } from "./cursor";
+import { RETRACTION_TITLE } from "./watches";
 
-export async function listNotifications({ db = getDatabase(), workspaceId, userId, limit = 50 }: { db?: Executor; workspaceId: string; userId: string; limit?: number }): Promise<Notification[]> {
-  return withDb("listing notifications", () =>
-    db
-      .select()
+/**
+ * One page of a person's notifications, newest first, forward-only like the app's other lists: the
+ * cursor is the (time, id) of the last row shown (db/queries/cursor.ts); a cursor not given out here is a
+ * 400 naming `cursor`.
+ */
+export async function listNotifications({
+  db = getDatabase(),
+  workspaceId,
+  userId,
+  limit = 50,
+  cursor,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  userId: string;
+  /** @default 50 */
+  limit?: number;
+  cursor?: string | null;
+}): Promise<{ items: Notification[]; nextCursor: string | null }> {
+  const after = cursor ? decodeCursor(cursor, 2) : null;
+  return withDb("listing notifications", async () => {
+    // The raw stored time, not the Date read back: a default time can carry a fraction of a millisecond.
+    const rows = await db
+      .select({ row: notifications, at: sql<number>`${notifications.createdAt}` })
       .from(notifications)
-      .where(and(eq(notifications.workspaceId, workspaceId), eq(notifications.userId, userId)))
+      .where(
+        and(
+          eq(notifications.workspaceId, workspaceId),
+          eq(notifications.userId, userId),
+          after ? sql`(${notifications.createdAt}, ${notifications.id}) < (${Number(after[0])}, ${String(after[1])})` : undefined,
+        ),
+      )
       .orderBy(desc(notifications.createdAt), desc(notifications.id))
-      .limit(limit),
-  );
+      .limit(limit + 1);
+    const page = rows.slice(0, limit);
+    const last = page[page.length - 1];
+    return { items: page.map((r) => r.row), nextCursor: rows.length > limit && last ? encodeCursor([last.at, last.row.id]) : null };
+  });
 }
 
 export async function countUnreadNotifications({ db = getDatabase(), workspaceId, userId }: { db?: Executor; workspaceId: string; userId: string }): Promise<number> {
@@ -53,6 +84,16 @@ export async function markNotificationsRead({
       .returning({ id: notifications.id });
     return rows.length;
   });
+}
+
+const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+
+/** "2 certified results", "2 certified results and 1 retraction": what a digest holds, by its notifications' titles. */
+export function digestCounts(titles: string[]): string {
+  const retracted = titles.filter((t) => t.startsWith(RETRACTION_TITLE)).length;
+  const certified = titles.length - retracted;
+  const parts = [certified > 0 ? plural(certified, "certified result", "certified results") : null, retracted > 0 ? plural(retracted, "retraction", "retractions") : null];
+  return parts.filter(Boolean).join(" and ");
 }
 
 export const DIGEST_PERIOD_MS = 24 * 60 * 60_000;
@@ -97,7 +138,7 @@ export async function queueDueDigests({
           workspaceId,
           userId,
           toAddress: person.email,
-          subject: `Your daily digest: ${items.length} certified ${items.length === 1 ? "result" : "results"}`,
+          subject: `Your daily digest: ${digestCounts(items.map((i) => i.title))}`,
           body: `${lines.join("\n")}\n\nStop these mails with one click: ${unsubscribe}\n`,
           unsubscribeUrl: unsubscribe,
         });

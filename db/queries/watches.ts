@@ -1,6 +1,7 @@
 import "server-only";
-import { and, asc, eq, inArray, ne, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, eq, inArray, or, sql } from "drizzle-orm";
 import {
+  chainLinks,
   maps,
   memberships,
   models,
@@ -214,23 +215,33 @@ async function matchingWatchers(db: Executor, e: CertifiedMapEvent) {
     .select({ userId: watches.userId })
     .from(watches)
     .where(and(eq(watches.workspaceId, e.workspaceId), inArray(watches.modelId, [e.source.id, e.target.id])));
-  const ruleMatches = [
-    and(eq(watchRules.scope, "class"), inArray(watchRules.modelKind, [e.source.kind, e.target.kind] as ModelKind[])),
-    and(eq(watchRules.scope, "onto"), eq(watchRules.modelId, e.target.id)),
-  ];
-  if (e.map.kind === "lumping" && e.subject !== "chain") ruleMatches.push(and(eq(watchRules.scope, "lumping-of"), eq(watchRules.modelId, e.source.id)));
-  const byRule = db
-    .select({ userId: watchRules.userId })
-    .from(watchRules)
-    .where(and(eq(watchRules.workspaceId, e.workspaceId), or(...ruleMatches)));
+  const byRule = ruleWatchers(db, e.workspaceId, { kind: e.subject === "chain" ? "chain" : e.map.kind, source: e.source, target: e.target });
   const ids = new Set([...(await byModel.all()), ...(await byRule.all())].map((r) => r.userId));
   if (e.actorId) ids.delete(e.actorId);
+  return membersAmong(db, e.workspaceId, ids);
+}
+
+/** The saved watches a map matches: a class of either end, "onto" its target, "any lumping of" its source. */
+function ruleWatchers(db: Executor, workspaceId: string, m: { kind: string; source: { id: string; kind: string }; target: { id: string; kind: string } }) {
+  const ruleMatches = [
+    and(eq(watchRules.scope, "class"), inArray(watchRules.modelKind, [m.source.kind, m.target.kind] as ModelKind[])),
+    and(eq(watchRules.scope, "onto"), eq(watchRules.modelId, m.target.id)),
+  ];
+  if (m.kind === "lumping") ruleMatches.push(and(eq(watchRules.scope, "lumping-of"), eq(watchRules.modelId, m.source.id)));
+  return db
+    .select({ userId: watchRules.userId })
+    .from(watchRules)
+    .where(and(eq(watchRules.workspaceId, workspaceId), or(...ruleMatches)));
+}
+
+/** Those of the people who are members of the workspace (someone who left hears nothing), with their mail choice. */
+async function membersAmong(db: Executor, workspaceId: string, ids: Set<string>) {
   if (ids.size === 0) return [];
   return db
     .select({ userId: users.id, email: users.email, delivery: memberships.mailDelivery })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
-    .where(and(eq(memberships.workspaceId, e.workspaceId), inArray(memberships.userId, [...ids])))
+    .where(and(eq(memberships.workspaceId, workspaceId), inArray(memberships.userId, [...ids])))
     .all();
 }
 
@@ -326,7 +337,43 @@ export async function notifyWatchersOfMap(db: Executor, e: CertifiedMapEvent): P
   return watchers.length;
 }
 
-/** One pending outbox message per person watching any of the models (the actor excepted): retractions. */
+/** The title of every retraction notification starts with this (the digest counts them apart). */
+export const RETRACTION_TITLE = "Map retracted: ";
+
+/**
+ * Who hears of a retraction: everyone who watches the map — its models, a class or saved search it
+ * matches — and everyone who was told of it or of a chain citing it (their watch may have changed
+ * since). Members only, the actor excepted, each person once.
+ */
+async function retractionRecipients(db: Executor, r: { workspaceId: string; mapId: string; modelIds: string[]; exceptUserId: string | null }) {
+  const byModel = db
+    .select({ userId: watches.userId })
+    .from(watches)
+    .where(and(eq(watches.workspaceId, r.workspaceId), inArray(watches.modelId, r.modelIds)));
+  const [map] = await db
+    .select({ kind: maps.kind, sourceId: maps.sourceModelId, targetId: maps.targetModelId })
+    .from(maps)
+    .where(and(eq(maps.workspaceId, r.workspaceId), eq(maps.id, r.mapId)))
+    .limit(1);
+  const ends = map ? await db.select({ id: models.id, kind: models.kind }).from(models).where(inArray(models.id, [map.sourceId, map.targetId])) : [];
+  const source = ends.find((x) => x.id === map?.sourceId);
+  const target = ends.find((x) => x.id === map?.targetId);
+  const byRule = map && source && target ? await ruleWatchers(db, r.workspaceId, { kind: map.kind, source, target }).all() : [];
+  const citing = db.select({ link: sql<string>`'/chains/' || ${chainLinks.chainId}` }).from(chainLinks).where(eq(chainLinks.mapId, r.mapId));
+  const told = db
+    .select({ userId: notifications.userId })
+    .from(notifications)
+    .where(and(eq(notifications.workspaceId, r.workspaceId), or(eq(notifications.mapId, r.mapId), inArray(notifications.link, citing))));
+  const ids = new Set([...(await byModel.all()), ...byRule, ...(await told.all())].map((x) => x.userId));
+  if (r.exceptUserId) ids.delete(r.exceptUserId);
+  return membersAmong(db, r.workspaceId, ids);
+}
+
+/**
+ * A retraction, told to everyone who watches the map (see retractionRecipients): one in-app
+ * notification each, and one mail each to those who chose immediate mail (digest readers find it in
+ * their digest; those who turned mail off get none). Runs inside the caller's transaction.
+ */
 export async function notifyWatchers({
   db,
   workspaceId,
@@ -344,21 +391,20 @@ export async function notifyWatchers({
   subject: string;
   body: string;
 }): Promise<number> {
-  const conditions: SQL[] = [eq(watches.workspaceId, workspaceId), inArray(watches.modelId, modelIds)];
-  if (exceptUserId) conditions.push(ne(watches.userId, exceptUserId));
-  // Members who turned watch mail off (or read digests) get no mail for a retraction either.
-  conditions.push(eq(memberships.mailDelivery, "immediate"));
-  const watchers = await db
-    .selectDistinct({ userId: users.id, email: users.email })
-    .from(watches)
-    .innerJoin(users, eq(users.id, watches.userId))
-    .innerJoin(memberships, and(eq(memberships.userId, watches.userId), eq(memberships.workspaceId, watches.workspaceId)))
-    .where(and(...conditions))
-    .all();
+  const watchers = await retractionRecipients(db, { workspaceId, mapId, modelIds, exceptUserId });
   if (watchers.length === 0) return 0;
-  await db
-    .insert(notificationOutbox)
-    .values(watchers.map((w) => ({ workspaceId, userId: w.userId, toAddress: w.email, subject, body, mapId })));
+  const title = subject.startsWith(RETRACTION_TITLE) ? subject : `${RETRACTION_TITLE}${subject}`;
+  await db.insert(notifications).values(
+    watchers.map((w) => ({ workspaceId, userId: w.userId, mapId, title, body, link: `/atlas/maps/${mapId}`, digestedAt: w.delivery === "digest" ? null : new Date() })),
+  );
+  const immediate = watchers.filter((w) => w.delivery === "immediate");
+  if (immediate.length > 0)
+    await db.insert(notificationOutbox).values(
+      immediate.map((w) => {
+        const unsubscribe = unsubscribeUrl({ appUrl: env.APP_URL, secret: env.AUTH_SECRET, workspaceId, userId: w.userId });
+        return { workspaceId, userId: w.userId, toAddress: w.email, subject, body: `${body}\nStop these mails with one click: ${unsubscribe}\n`, mapId, unsubscribeUrl: unsubscribe };
+      }),
+    );
   return watchers.length;
 }
 

@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, count, desc, eq, inArray } from "drizzle-orm";
+import { and, asc, count, desc, eq, inArray, not } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import type { Role } from "@/lib/policy";
 import { chains, jobs, maps, memberships, models, users, workspaces, type Workspace } from "../schema";
@@ -156,8 +156,34 @@ export type RecentMap = {
 const recentSource = alias(models, "recent_source");
 const recentTarget = alias(models, "recent_target");
 
-/** The newest certified maps of a workspace (retracted ones left out). */
-export async function listRecentMaps({ db = getDatabase(), workspaceId, limit = 10 }: { db?: Executor; workspaceId: string; limit?: number }): Promise<RecentMap[]> {
+/** The constant ECAs 0 and 255: nearly every rule coarse-grains onto them, so lists fold those maps. */
+export const CONSTANT_ECA_RULES = [0, 255];
+
+/** Which maps onto a constant ECA a recent-maps list keeps: all (default), none, or only those. */
+export type ConstantTargets = "include" | "exclude" | "only";
+
+const ontoConstant = () => and(eq(recentTarget.kind, "eca"), inArray(recentTarget.rule, CONSTANT_ECA_RULES));
+
+function recentMapFilter(workspaceId: string, constantTargets: ConstantTargets) {
+  const certified = and(eq(maps.workspaceId, workspaceId), eq(maps.status, "certified"));
+  if (constantTargets === "only") return and(certified, ontoConstant());
+  if (constantTargets === "exclude") return and(certified, not(ontoConstant()!));
+  return certified;
+}
+
+/** The newest certified maps of a workspace (retracted ones left out), with or without those onto constant ECAs. */
+export async function listRecentMaps({
+  db = getDatabase(),
+  workspaceId,
+  limit = 10,
+  constantTargets = "include",
+}: {
+  db?: Executor;
+  workspaceId: string;
+  limit?: number;
+  /** @default "include" */
+  constantTargets?: ConstantTargets;
+}): Promise<RecentMap[]> {
   return withDb("listing recent maps", () =>
     db
       .select({
@@ -175,10 +201,22 @@ export async function listRecentMaps({ db = getDatabase(), workspaceId, limit = 
       .innerJoin(recentSource, eq(recentSource.id, maps.sourceModelId))
       .innerJoin(recentTarget, eq(recentTarget.id, maps.targetModelId))
       .leftJoin(users, eq(users.id, maps.authorId))
-      .where(and(eq(maps.workspaceId, workspaceId), eq(maps.status, "certified")))
+      .where(recentMapFilter(workspaceId, constantTargets))
       .orderBy(desc(maps.createdAt), desc(maps.id))
       .limit(limit),
   );
+}
+
+/** How many certified maps of the workspace go onto a constant ECA (0 or 255). */
+export async function countConstantTargetMaps({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<number> {
+  return withDb("counting maps onto constant rules", async () => {
+    const [row] = await db
+      .select({ n: count() })
+      .from(maps)
+      .innerJoin(recentTarget, eq(recentTarget.id, maps.targetModelId))
+      .where(recentMapFilter(workspaceId, "only"));
+    return row?.n ?? 0;
+  });
 }
 
 export async function listRecentChains({ db = getDatabase(), workspaceId, limit = 5 }: { db?: Executor; workspaceId: string; limit?: number }) {

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { certifyBlocking, certifyDecimation, certifyIterate, certifyLumping, certifyProjection, type Certificate } from "@/lib/certificate";
+import { certifyBlocking, certifyDecimation, certifyIterate, certifyLumping, certifyProjection, sealCertificate, type Certificate } from "@/lib/certificate";
 import { allOnes, parity } from "@/lib/ca/testSupport";
 import { liftedChain } from "@/lib/markov/testSupport";
 import { formatMatrix } from "@/lib/markov";
@@ -48,6 +48,21 @@ describe("composeChain: pasting squares (DOMAIN.md §3)", () => {
   it("names a link that does not verify", () => {
     const broken = { ...p150, target: { kind: "eca", rule: 90 } } as Certificate;
     expect(composeChain([p105, broken])).toMatchObject({ ok: false, link: 1 });
+  });
+
+  it("says in words why a link's square fails, and hands over the checker's counterexample for a page to draw", () => {
+    // 150 → 90 by block parity is false: on the blocks 00|01|00, two steps of rule 150 (x₋₁ ⊕ x₀ ⊕ x₁) turn the
+    // centre block into 01 (parity 1), while rule 90 (x₋₁ ⊕ x₁) on the parities 0 1 0 gives 0 (worked by hand).
+    const wrong = sealCertificate({ ...p150, target: { kind: "eca", rule: 90 } } as Certificate);
+    const r = composeChain([p105, wrong]);
+    expect(r).toMatchObject({
+      ok: false,
+      link: 1,
+      counterexample: { kind: "coarse-rule-mismatch", cells: ["00", "01", "00"], imageCells: "01", coarse: 1, coarseWindow: [0, 1, 0], claimed: 0 },
+    });
+    expect(!r.ok && r.reason).toBe(
+      "link 2 does not verify: the square does not commute: for some fine window, the projected centre block after the fine steps differs from what the coarse rule gives",
+    );
   });
 
   it("composes lumping with decimation: the Grinstead & Snell Example 11.1 chain lumped by {R,S}|{N}, then squared", () => {

@@ -177,7 +177,7 @@ export async function submitChain({
   if (outcome.status === "broken-chain") {
     throw new AppError("does_not_commute", outcome.reason, {
       field: outcome.link >= 0 ? `mapIds.${outcome.link}` : "mapIds",
-      details: { link: outcome.link >= 0 ? outcome.link : null, reason: outcome.reason },
+      details: { link: outcome.link >= 0 ? outcome.link : null, reason: outcome.reason, counterexample: outcome.counterexample },
     });
   }
   if (outcome.status !== "chain") throw new AppError("internal", "The verification worker answered a different question.");

@@ -14,6 +14,7 @@ import {
   certifyProjection,
   CERTIFICATE_VERSION,
   type Certificate,
+  type Counterexample,
 } from "@/lib/certificate";
 import { composeChain } from "@/lib/chain";
 import { canonicalModel, ModelInputError } from "@/lib/models";
@@ -62,7 +63,7 @@ export type VerifyOutcome =
   | { status: "model"; fields: ModelFields }
   | { status: "address"; address: string }
   | { status: "chain"; composite: Verified; verification: "links" | "links+composite" }
-  | { status: "broken-chain"; link: number; reason: string }
+  | { status: "broken-chain"; link: number; reason: string; counterexample?: Counterexample }
   | { status: "derived"; variants: { derivation: Derivation; verified: Verified }[]; skipped: { derivation: Derivation; reason: string }[] };
 
 /**
@@ -81,7 +82,7 @@ export function runVerifyTask(task: VerifyTask): VerifyOutcome {
       return symmetric(task.certificate, task.limits);
     case "chain": {
       const result = composeChain(task.certificates as Certificate[], task.limits);
-      if (!result.ok) return { status: "broken-chain", link: result.link, reason: result.reason };
+      if (!result.ok) return { status: "broken-chain", link: result.link, reason: result.reason, counterexample: result.counterexample };
       const composite = verifiedFields(result.composite, "");
       return { status: "chain", composite, verification: result.verification };
     }

@@ -10,7 +10,7 @@ import { symmetryClass } from "@/lib/symmetry";
 import { DEFAULT_LIMITS } from "@/lib/verify";
 import { modelFields } from "@/server/atlas/model-fields";
 import { runVerifyTask, type BuildRequest } from "@/server/atlas/verify-task";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, signedInPage, startTestServer, type TestServer } from "@/tests/support";
 
 let server: TestServer;
 let browser: Browser;
@@ -38,16 +38,7 @@ async function certify(key: string, build: BuildRequest) {
 
 const person = (role: string) => server.person(role);
 
-async function signedIn(role: string): Promise<Page> {
-  const who = person(role);
-  const page = await (await browser.newContext()).newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", who.email);
-  await page.fill("#password", who.password);
-  await page.click("form button[type=submit]");
-  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
-  return page;
-}
+const signedIn = (role: string): Promise<Page> => signedInPage(browser, server.url, person(role));
 
 beforeAll(async () => {
   server = await startTestServer();

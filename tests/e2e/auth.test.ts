@@ -3,7 +3,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { countNotes } from "@/db/queries/notes";
 import { users } from "@/db/schema";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, startTestServer, submitSignIn, type TestServer } from "@/tests/support";
 
 let server: TestServer;
 let browser: Browser;
@@ -24,12 +24,7 @@ async function newPage(): Promise<Page> {
   return context.newPage();
 }
 
-async function signIn(page: Page, email: string, password: string): Promise<void> {
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", email);
-  await page.fill("#password", password);
-  await page.click("form button[type=submit]");
-}
+const signIn = (page: Page, email: string, password: string): Promise<void> => submitSignIn(page, server.url, { email, password });
 
 describe("signing up, in and out", () => {
   it("lets a visitor sign up, see the dashboard of their own atlas, and sign out", async () => {

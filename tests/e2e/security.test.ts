@@ -4,7 +4,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createApiToken } from "@/db/queries/tokens";
 import { apiTokens } from "@/db/schema";
 import { generateTokenSecret, hashTokenSecret } from "@/server/tokens";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, signedInPage, startTestServer, type TestServer } from "@/tests/support";
 
 let server: TestServer;
 let browser: Browser;
@@ -21,11 +21,7 @@ afterAll(async () => {
 const person = (role: string) => server.person(role);
 
 async function signedIn(role: string): Promise<Page> {
-  const page = await (await browser.newContext()).newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", person(role).email);
-  await page.fill("#password", person(role).password);
-  await page.click("form button[type=submit]");
+  const page = await signedInPage(browser, server.url, person(role));
   await page.waitForURL(`${server.url}/dashboard`);
   return page;
 }

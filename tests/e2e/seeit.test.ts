@@ -9,7 +9,7 @@ import { maps, models, workspaces } from "@/db/schema";
 import { symmetryClass } from "@/lib/symmetry";
 import { DEFAULT_LIMITS } from "@/lib/verify";
 import { runVerifyTask, type BuildRequest } from "@/server/atlas/verify-task";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, signedInPage, startTestServer, type TestServer } from "@/tests/support";
 import demoAtlas from "@/lib/ca/fixtures/demo-atlas-projections.json";
 
 type DemoMap = { source: { kind: string; rule: number }; target: { kind: string; rule?: number }; block: number; steps: number; projection: number[] };
@@ -34,16 +34,7 @@ async function certify(build: BuildRequest) {
   });
 }
 
-async function signedIn(role: string): Promise<Page> {
-  const who = person(role);
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", who.email);
-  await page.fill("#password", who.password);
-  await page.click("form button[type=submit]");
-  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
-  return page;
-}
+const signedIn = (role: string): Promise<Page> => signedInPage(browser, server.url, person(role), { width: 1366 });
 
 async function modelId(name: string, workspaceId = server.workspace.id): Promise<string> {
   const [row] = await server.db.select().from(models).where(and(eq(models.workspaceId, workspaceId), eq(models.name, name)));
@@ -108,6 +99,43 @@ describe("seeing the atlas", () => {
     await page.locator(".react-flow__node", { hasText: /^class 0(?!\d)/ }).waitFor();
     // ONTO_ZERO[0] maps onto ECA 0, so its class lies above class 0.
     expect(await top(`class ${symmetryClass(ONTO_ZERO[0].source.rule)}`)).toBeLessThan(await top("class 0"));
+    await page.context().close();
+  });
+
+  it("folds the hierarchy's overview behind a button, and the zoom controls cover no node at 1366 px", async () => {
+    const page = await signedIn("viewer");
+    await page.goto(`${server.url}/atlas/hierarchy?constants=1`);
+    await page.locator(".react-flow__node").first().waitFor();
+    await expect(page.locator(".react-flow__minimap").count()).resolves.toBe(0);
+    const nodes = await page.locator(".react-flow__node").evaluateAll((els) => els.map((e) => e.getBoundingClientRect().toJSON() as DOMRect));
+    const controls = (await page.locator(".react-flow__controls").boundingBox())!;
+    const covers = (a: { x: number; y: number; width: number; height: number }, b: DOMRect) =>
+      a.x < b.right && b.left < a.x + a.width && a.y < b.bottom && b.top < a.y + a.height;
+    expect(nodes.length).toBeGreaterThanOrEqual(3);
+    expect(nodes.filter((n) => covers(controls, n))).toEqual([]);
+    await page.getByRole("button", { name: "Show an overview" }).click();
+    await page.locator(".react-flow__minimap").waitFor();
+    await page.getByRole("button", { name: "Hide the overview" }).click();
+    await expect.poll(() => page.locator(".react-flow__minimap").count()).toBe(0);
+    await page.context().close();
+  });
+
+  it("folds the dashboard's maps onto the constant rules into one line that opens", async () => {
+    const page = await signedIn("viewer");
+    await page.goto(`${server.url}/dashboard`);
+    const recent = page.getByRole("list", { name: "Recently certified" });
+    // Only 146 → 128 and 128 → 128 are listed one by one; the 25 maps onto ECA 0 are one closed line.
+    await expect(recent.locator(":scope > li > a").allTextContents()).resolves.toEqual(
+      expect.arrayContaining(["ECA 146 → ECA 128, projection at block 3", "ECA 128 → ECA 128, projection at block 3"]),
+    );
+    await expect(recent.locator(":scope > li > a").count()).resolves.toBe(2);
+    const folded = recent.locator("details");
+    await expect(folded.locator("summary").textContent()).resolves.toContain("25 maps onto the constant rules (ECA 0, ECA 255)");
+    await expect(folded.getByRole("list", { name: "Maps onto the constant rules" }).isVisible()).resolves.toBe(false);
+    await folded.locator("summary").click();
+    const opened = folded.getByRole("list", { name: "Maps onto the constant rules" }).locator("li a");
+    await expect(opened.count()).resolves.toBe(5);
+    expect((await opened.allTextContents()).every((t) => t.includes("→ ECA 0,"))).toBe(true);
     await page.context().close();
   });
 

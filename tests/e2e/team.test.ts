@@ -1,10 +1,10 @@
-import { mkdirSync } from "node:fs";
 import { and, eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { addWatchRule } from "@/db/queries/watches";
 import { notificationOutbox, notifications } from "@/db/schema";
 import { DEMO_WORKSPACE } from "@/db/seed/people";
-import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
+import { launchBrowser, screenshotWidths, signedInPage, startTestServer, type TestServer } from "@/tests/support";
 
 let server: TestServer;
 let browser: Browser;
@@ -13,25 +13,10 @@ const SHOTS = process.env.SHOTS_DIR;
 
 const person = (role: string) => server.person(role);
 
-async function signedIn(role: string): Promise<Page> {
-  const who = person(role);
-  const page = await (await browser.newContext({ viewport: { width: 1366, height: 900 } })).newPage();
-  await page.goto(`${server.url}/sign-in`);
-  await page.fill("#email", who.email);
-  await page.fill("#password", who.password);
-  await page.click("form button[type=submit]");
-  await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
-  return page;
-}
+const signedIn = (role: string): Promise<Page> => signedInPage(browser, server.url, person(role), { width: 1366 });
 
 async function shoot(page: Page, name: string): Promise<void> {
-  if (!SHOTS) return;
-  mkdirSync(SHOTS, { recursive: true });
-  for (const width of [1366, 390]) {
-    await page.setViewportSize({ width, height: 900 });
-    await page.screenshot({ path: `${SHOTS}/${name}-${width}.png`, fullPage: true });
-  }
-  await page.setViewportSize({ width: 1366, height: 900 });
+  if (SHOTS) await screenshotWidths(page, SHOTS, name);
 }
 
 /** A JSON request from the signed-in page itself (same origin, its session cookie). */
@@ -118,6 +103,45 @@ describe("a team of two watching, and a third invited", () => {
     await admin.goto(`${server.url}/dashboard`);
     await shoot(admin, "workspace-home");
     for (const p of [a, b, admin]) await p.context().close();
+  });
+
+  it("a curator retracts a map the admin watches only through a class: one retraction mail and one notification; the list pages 25 at a time", async () => {
+    const a = await signedIn("contributor");
+    const curator = await signedIn("curator");
+    const admin = await signedIn("admin");
+    const adminPerson = person("admin");
+    await addWatchRule({ workspaceId: server.workspace.id, userId: adminPerson.id, scope: "class", modelKind: "eca" });
+    // ECA 90 onto itself at block 2 by the parity of the block (rule 90 is additive: x₋₁ ⊕ x₁; common practice).
+    const made = await api(a, "/api/certificates", { build: { kind: "projection", rule: 90, block: 2, projection: [0, 1, 1, 0] } });
+    expect(made.status).toBe(201);
+    const mapId = String(made.json.mapId);
+    const retracted = await api(curator, `/api/maps/${mapId}/retract`, { reason: "a second copy of an older map" });
+    expect(retracted.status).toBe(200);
+
+    const isRetraction = (m: { to: string[] | string; subject: string }) => String(m.to).includes(adminPerson.email) && m.subject.startsWith("Map retracted:");
+    const mail = await server.waitForMail(isRetraction, 60_000);
+    expect(mail.subject).toMatch(/^Map retracted: ECA 90 → ECA 90/);
+    expect(mail.text).toContain("Reason: a second copy of an older map");
+    // Longer than the outbox's 5-second pass: a second copy would have gone out by now.
+    await new Promise((r) => setTimeout(r, 8_000));
+    expect((await server.readMail()).filter(isRetraction)).toHaveLength(1);
+
+    // 30 older notifications more: the newest 25 on the first page, the retraction first among them.
+    const at = Date.parse("2026-01-05T10:00:00Z");
+    await server.db.insert(notifications).values(
+      Array.from({ length: 30 }, (_, i) => ({ workspaceId: server.workspace.id, userId: adminPerson.id, title: `Older result ${i + 1}`, body: "", link: "/atlas", createdAt: new Date(at - i * 60_000) })),
+    );
+    await admin.goto(`${server.url}/notifications`);
+    const items = admin.getByRole("list", { name: "Notifications" }).locator(":scope > li");
+    await expect(items.count()).resolves.toBe(25);
+    await expect(items.first().textContent()).resolves.toContain("Map retracted: ECA 90 → ECA 90");
+    const total = (await server.db.select().from(notifications).where(eq(notifications.userId, adminPerson.id))).length;
+    await admin.getByRole("link", { name: "Next page →" }).click();
+    await admin.waitForURL(/cursor=/);
+    await expect(admin.getByRole("list", { name: "Notifications" }).locator(":scope > li").count()).resolves.toBe(total - 25);
+    await expect(admin.getByRole("link", { name: "Older result 30" }).count()).resolves.toBe(1);
+    await shoot(admin, "notifications-page-2");
+    for (const p of [a, curator, admin]) await p.context().close();
   });
 
   it("an admin invites C as curator; C accepts from the mail and lands in the workspace with that role", async () => {

@@ -1,6 +1,9 @@
 import { z } from "zod";
 import { errorResponses, jsonBody, SECURITY, type RouteConfig } from "@/app/api/_lib/doc";
+import { Cursor, Limit } from "@/app/api/_lib/schemas";
 import { MAIL_DELIVERIES } from "@/db/schema";
+
+export const ListQuery = z.object({ limit: Limit, cursor: Cursor });
 
 export const Delivery = z.enum(MAIL_DELIVERIES, { message: `Choose one of ${MAIL_DELIVERIES.join(", ")}.` });
 export const DeliveryBody = z.object({ delivery: Delivery }).meta({ id: "MailDelivery", description: "`immediate`: one mail per event; `digest`: one mail a day; `off`: none." });
@@ -19,8 +22,9 @@ export const notificationRoutes: RouteConfig[] = [
     summary: "Your notifications in this workspace, the unread count and your mail choice",
     tags: ["watches"],
     security: SECURITY,
+    request: { query: ListQuery },
     responses: {
-      200: jsonBody(z.object({ unread: z.number().int(), delivery: Delivery, items: z.array(NotificationOut) }), "Newest first"),
+      200: jsonBody(z.object({ unread: z.number().int(), delivery: Delivery, items: z.array(NotificationOut), nextCursor: z.string().nullable() }), "One page, newest first"),
       ...errorResponses("unauthenticated", "forbidden"),
     },
   },

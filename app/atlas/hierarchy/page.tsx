@@ -93,7 +93,7 @@ async function Hierarchy({ workspaceId, view }: { workspaceId: string; view: Vie
           </Link>
         </p>
       ) : (
-        <p className="text-sm text-ink-soft">Drag to pan, scroll to zoom; pick a class below to see only its ancestors and descendants.</p>
+        <p className="text-sm text-ink-soft">Drag to pan, scroll or pinch to zoom; pick a class below to see only its ancestors and descendants.</p>
       )}
       {drawn.length > 0 ? (
         <AtlasGraph layout={layout} height={focused ? height : Math.max(height, 560)} readableZoom={focused ? 0.1 : 0.6} minimap={!focused} />
@@ -101,14 +101,14 @@ async function Hierarchy({ workspaceId, view }: { workspaceId: string; view: Vie
         <p className="rounded-md bg-paper px-3 py-6 text-center text-sm text-ink-faint">No coarse-graining between ECAs is certified{block !== null ? " at this block size" : ""} yet.</p>
       )}
       <Panel title="Symmetry classes (rules equal up to reflection and 0↔1 exchange)">
-        <ul className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2 lg:grid-cols-4">
+        <ul className="grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:gap-x-6 lg:grid-cols-4">
           {grouped.groups.map((g) => (
             <li key={g.symmetryClass} className="flex items-baseline gap-2 border-b border-line/60 py-1">
               <Link
                 href={hierarchyHref({ ...view, focus: g.symmetryClass })}
                 aria-current={g.symmetryClass === focus ? "true" : undefined}
                 title={`Draw only class ${g.symmetryClass} and the classes above and below it`}
-                className={`w-20 shrink-0 whitespace-nowrap font-mono text-xs hover:text-tide-700 ${g.symmetryClass === focus ? "font-semibold text-tide-700" : "text-ink-faint"}`}
+                className={`w-16 shrink-0 whitespace-nowrap font-mono text-xs sm:w-20 hover:text-tide-700 ${g.symmetryClass === focus ? "font-semibold text-tide-700" : "text-ink-faint"}`}
               >
                 class {g.symmetryClass}
               </Link>

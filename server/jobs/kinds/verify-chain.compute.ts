@@ -1,6 +1,6 @@
 // Runs in a job worker thread: lib/ only.
 import { z } from "zod";
-import { certificateSummary, certificateText, type Certificate } from "@/lib/certificate";
+import { certificateSummary, certificateText, type Certificate, type Counterexample } from "@/lib/certificate";
 import { composeChain } from "@/lib/chain";
 import { CHECKER_VERSION, DEFAULT_LIMITS, type Limits } from "@/lib/verify";
 import type { ComputeContext } from "./types";
@@ -34,7 +34,7 @@ export type VerifyChainOutput =
       links: Certificate[];
       summary: string;
     }
-  | { ok: false; link: number; reason: string };
+  | { ok: false; link: number; reason: string; counterexample?: Counterexample };
 
 export function compute(params: VerifyChainParams, context: ComputeContext): VerifyChainOutput {
   context.onProgress(0, `checking ${params.certificates.length} links and their composite`);

@@ -26,7 +26,7 @@ export const verifyChainKind = defineJobKind({
   },
   async persist({ job, params, output, onProgress, signal }) {
     const result = output as VerifyChainOutput;
-    if (!result.ok) throw new AppError("does_not_commute", result.reason, { details: { link: result.link } });
+    if (!result.ok) throw new AppError("does_not_commute", result.reason, { details: { link: result.link, counterexample: result.counterexample } });
     const summary = { ok: true, verification: result.verification, composite: result.composite.address, summary: result.summary };
     if (!params.save) return summary;
     if (!job.ownerId) throw new AppError("conflict", "The job's owner has left; nothing was saved.");

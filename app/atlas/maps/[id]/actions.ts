@@ -30,7 +30,7 @@ export async function retractMapAction(mapId: string, _state: RetractState, form
     throw err;
   }
   revalidatePath(`/atlas/maps/${mapId}`);
-  return { status: "ok", message: "The map is retracted; watchers of its models will be told." };
+  return { status: "ok", message: "The map is retracted; everyone who watches it or its models will be told." };
 }
 
 export type ReverifyState = { status: "idle" | "ok" | "error"; message?: string };
