@@ -168,12 +168,12 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     setCertifying(true);
     setOutcome(null);
     try {
-      const chainEdges = path.ok ? path.edges.map((e) => e.id) : [];
       const jobs = {
         pollMs: 700,
         wait: (ms: number) => new Promise<void>((r) => setTimeout(r, ms)),
-        onProgress: (progress: number, item: string | null) => {
-          for (const id of chainEdges) onJob(id, progress >= 1 ? null : { progress, label: `composite check (job): ${Math.round(progress * 100)}%${item ? ` · ${item}` : ""}` });
+        onProgress: (progress: number, item: string | null, edgeIds: string[]) => {
+          const what = edgeIds.length > 1 ? "composite check" : "map check";
+          for (const id of edgeIds) onJob(id, progress >= 1 ? null : { progress, label: `${what} (job): ${Math.round(progress * 100)}%${item ? ` · ${item}` : ""}` });
         },
       };
       const result = await certifyWorkbench(w, browserApi, dispatch, { jobs });

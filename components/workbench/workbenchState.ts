@@ -1,12 +1,8 @@
 import type { ModelInput } from "@/lib/models";
 
-/** A map's parameters as the person chose them; `null` until a kind is chosen. */
-export type MapSpec =
-  | { kind: "projection"; block: number; projection: number[] }
-  | { kind: "lumping"; partition: number[] }
-  | { kind: "decimation"; steps: number }
-  | { kind: "iterate"; steps: number }
-  | { kind: "blocking"; block: number };
+import type { MapSpec } from "@/lib/workbench";
+
+export type { MapSpec };
 
 /** certified: in the atlas; proposed: drawn, not checked; checking: at the server; refused: checked and fails. */
 export type EdgeState = "proposed" | "checking" | "certified" | "refused";
