@@ -45,9 +45,6 @@ export default async function ChainsPage({ searchParams }: Props) {
             <Link href="/chains/workbench" className={buttonClass("primary")}>
               Open the workbench
             </Link>
-            <Link href="/chains/new" className={buttonClass("secondary")}>
-              Chain certified maps
-            </Link>
           </>
         }
       />

@@ -70,6 +70,11 @@ export function specText(spec: MapSpec | null): string {
   }
 }
 
+/** An edge in words: its parameters, or for a map taken from the atlas that it is one (its certificate has the rest). */
+export function edgeText(edge: WbEdge): string {
+  return edge.spec === null && edge.state === "certified" ? "certified map from the atlas" : specText(edge.spec);
+}
+
 function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, markerEnd, selected }: EdgeProps<EdgeData>) {
   const [path, labelX, labelY] = getBezierPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition });
   const edge = data!.edge;
@@ -85,7 +90,7 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
           style={{ transform: `translate(${NODE_WIDTH / 2 + 14}px, -50%) translate(${labelX}px, ${labelY}px)` }}
           data-edge-label={edge.state}
         >
-          <div className="font-mono text-ink-soft">{specText(edge.spec)}</div>
+          <div className="font-mono text-ink-soft">{edgeText(edge)}</div>
           <span className={`inline-block rounded-full px-1.5 font-semibold ring-1 ${style.chip}`}>{style.word}</span>
           {data!.job ? (
             <div className="space-y-0.5" role="status">
@@ -157,7 +162,7 @@ export function WorkbenchCanvas({
         selected: selected?.type === "edge" && selected.id === e.id,
         markerEnd: { type: MarkerType.ArrowClosed, color: STYLE[e.state].stroke },
         data: { edge: e, job: jobs[e.id] ?? null, rule: e.state === "refused" ? ruleOf(tryCanonical(workbench.nodes.find((n) => n.id === e.source)?.model ?? null)) : null },
-        ariaLabel: `Map ${specText(e.spec)}, ${STYLE[e.state].word}`,
+        ariaLabel: `Map ${edgeText(e)}, ${STYLE[e.state].word}`,
       })),
     [workbench.edges, workbench.nodes, selected, jobs],
   );

@@ -12,7 +12,7 @@ import { MapEditor, STATE_CLASS, STATE_TEXT, type JobProgress } from "./map-edit
 import { MapSearch, type AtlasMap } from "./map-search";
 import { AddModelPanel, inputClass, type NewModel } from "./model-forms";
 import { NodeInspector } from "./node-inspector";
-import { NODE_HEIGHT, NODE_WIDTH, specText, WorkbenchCanvas } from "./workbench-canvas";
+import { edgeText, NODE_HEIGHT, NODE_WIDTH, WorkbenchCanvas } from "./workbench-canvas";
 import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbNode, type Workbench as Canvas } from "./workbenchState";
 
 export type DraftInfo = { id: string; name: string; shared: boolean; mine: boolean; ownerName: string };
@@ -141,18 +141,18 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       setNotice("The models of that map could not be read.");
       return;
     }
-    const find = (modelId: string) => w.nodes.find((n) => n.modelId === modelId);
-    const nodeFor = (ref: { id: string; name: string }, model: Model, below: string | null): WbNode =>
-      find(ref.id) ?? { id: newId("n"), name: ref.name, description: "", model, modelId: ref.id, note: "", ...placeNew(w, below) };
-    const source = nodeFor(m.source, (s.body as { model: Model }).model, null);
-    const target = nodeFor(m.target, (t.body as { model: Model }).model, source.id);
+    const fresh = (ref: { id: string; name: string }, model: Model, below: string | null): WbNode => ({ id: newId("n"), name: ref.name, description: "", model, modelId: ref.id, note: "", ...placeNew(w, below) });
+    const source = w.nodes.find((n) => n.modelId === m.source.id) ?? fresh(m.source, (s.body as { model: Model }).model, null);
+    // The target gets a node of its own unless one of its model has no map into it yet (a map may go from a model to itself).
+    const free = w.nodes.find((n) => n.modelId === m.target.id && n.id !== source.id && !w.edges.some((e) => e.target === n.id));
+    const target = free ?? fresh(m.target, (t.body as { model: Model }).model, source.id);
     for (const n of [source, target]) dispatch({ type: "add-node", node: n });
     const refusal = edgeRefusal({ ...w, nodes: [...w.nodes, source, target] }, source.id, target.id);
     if (refusal) {
       setNotice(refusal);
       return;
     }
-    const spec: MapSpec | null = m.kind === "decimation" || m.kind === "iterate" ? { kind: m.kind, steps: m.block ?? 1 } : null;
+    const spec: MapSpec | null = null;
     dispatch({
       type: "add-edge",
       edge: { id: newId("e"), source: source.id, target: target.id, spec, state: "certified", mapId: m.id, certificateAddress: null, problem: null },
@@ -370,7 +370,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
                 return (
                   <li key={e.id}>
                     <button type="button" onClick={() => setSelected({ type: "edge", id: e.id })} className="text-left hover:underline" aria-current={selected?.id === e.id ? "true" : undefined}>
-                      {nodeLabel(w.nodes, e.source)} → {nodeLabel(w.nodes, e.target)}: {specText(e.spec)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
+                      {nodeLabel(w.nodes, e.source)} → {nodeLabel(w.nodes, e.target)}: {edgeText(e)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
                     </button>
                   </li>
                 );
@@ -396,7 +396,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
                 </button>
               </>
             ) : (
-              <p className="text-xs text-ink-faint">{canCertify ? "Duplicate this draft to change and certify it." : "Your role may read drafts but not certify (contributor or higher)."}</p>
+              <p className="text-xs text-ink-faint">{canCertify ? "Duplicate this draft to change and certify it." : "Your role may not certify maps or store chains (contributor or higher)."}</p>
             )}
             {outcome ? (
               <p className={`text-xs ${outcome.ok ? "text-moss-700" : "text-brick-700"}`} role="status" data-certify-outcome={outcome.ok ? "ok" : "failed"}>

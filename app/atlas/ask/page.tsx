@@ -118,7 +118,7 @@ async function Answer({ workspaceId, a, b, depth }: { workspaceId: string; a: Mo
             </p>
             <ChainList links={links} />
             {links.length > 1 ? (
-              <Link href={`/chains/new?maps=${answer.mapIds.join(",")}`} className="inline-block rounded-md bg-tide-700 px-3 py-1.5 text-sm font-semibold text-paper-raised hover:bg-tide-800">
+              <Link href={`/chains/workbench?maps=${answer.mapIds.join(",")}`} className="inline-block rounded-md bg-tide-700 px-3 py-1.5 text-sm font-semibold text-paper-raised hover:bg-tide-800">
                 Compose and certify this chain
               </Link>
             ) : null}
