@@ -120,6 +120,16 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
   );
 }
 
+/** The node or edge a key was pressed on: React Flow marks node wrappers with data-id and edges with data-testid. */
+function keyboardTarget(target: EventTarget | null): { type: "node" | "edge"; id: string } | null {
+  if (!(target instanceof Element)) return null;
+  const node = target.closest(".react-flow__node");
+  const nodeId = node?.getAttribute("data-id");
+  if (nodeId) return { type: "node", id: nodeId };
+  const edgeId = target.closest(".react-flow__edge")?.getAttribute("data-testid")?.replace(/^rf__edge-/, "");
+  return edgeId ? { type: "edge", id: edgeId } : null;
+}
+
 const nodeTypes = { model: ModelNode };
 const edgeTypes = { map: MapEdge };
 
@@ -132,6 +142,7 @@ export function WorkbenchCanvas({
   onSelect,
   onConnect,
   onMoved,
+  onOpen,
 }: {
   workbench: Workbench;
   selected: { type: "node" | "edge"; id: string } | null;
@@ -140,6 +151,8 @@ export function WorkbenchCanvas({
   onSelect: (s: { type: "node" | "edge"; id: string } | null) => void;
   onConnect: (source: string, target: string) => void;
   onMoved: (id: string, x: number, y: number) => void;
+  /** After a node or edge was chosen by keyboard: move the focus to its inspector. */
+  onOpen?: () => void;
 }) {
   const nodes = useMemo<Node<NodeData>[]>(
     () =>
@@ -179,6 +192,15 @@ export function WorkbenchCanvas({
       onNodeClick={(_, n) => onSelect({ type: "node", id: n.id })}
       onEdgeClick={(_, e) => onSelect({ type: "edge", id: e.id })}
       onPaneClick={() => onSelect(null)}
+      onKeyDown={(e) => {
+        // Tab reaches each node and edge (React Flow makes them focusable); Enter or Space opens its inspector.
+        if (e.key !== "Enter" && e.key !== " ") return;
+        const hit = keyboardTarget(e.target);
+        if (!hit) return;
+        e.preventDefault();
+        onSelect(hit);
+        onOpen?.();
+      }}
       onConnect={(c: Connection) => (c.source && c.target ? onConnect(c.source, c.target) : undefined)}
       onNodeDragStop={(_, n) => onMoved(n.id, n.position.x, n.position.y)}
       fitView

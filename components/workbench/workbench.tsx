@@ -49,6 +49,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const [outcome, setOutcome] = useState<{ ok: boolean; message: string; chainId: string | null } | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const flow = useReactFlow();
+  const inspectorRef = useRef<HTMLElement>(null);
   const readOnly = !canEdit;
 
   // Autosave: the canvas as it stands, a moment after the last edit (a new draft on the first one).
@@ -316,12 +317,13 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
               onSelect={setSelected}
               onConnect={connect}
               onMoved={(id, x, y) => dispatch({ type: "positions", positions: { [id]: { x, y } } })}
+              onOpen={() => requestAnimationFrame(() => inspectorRef.current?.focus())}
             />
           )}
         </div>
 
         <aside className="order-3 space-y-3" aria-label="Selection and certify">
-          <section className="space-y-2 rounded-md border border-line bg-paper-raised p-2">
+          <section ref={inspectorRef} tabIndex={-1} aria-label="Inspector" className="space-y-2 rounded-md border border-line bg-paper-raised p-2 outline-none focus-visible:ring-2 focus-visible:ring-tide-500" data-inspector>
             {selectedNode ? (
               <NodeInspector
                 key={selectedNode.id}

@@ -88,10 +88,10 @@ export async function searchChains({
 }
 
 /** The models that some chain of the workspace passes through, by name: the choices of the model filter. */
-export async function listChainModels({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<{ id: string; name: string }[]> {
+export async function listChainModels({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<{ id: string; name: string; kind: string; address: string }[]> {
   return withDb("listing chain models", async () => {
     const rows = await db
-      .selectDistinct({ id: models.id, name: models.name })
+      .selectDistinct({ id: models.id, name: models.name, kind: models.kind, address: models.address })
       .from(chainLinks)
       .innerJoin(chains, eq(chains.id, chainLinks.chainId))
       .innerJoin(maps, eq(maps.id, chainLinks.mapId))
