@@ -117,8 +117,7 @@ try {
     chainOf("bench: rule 105 in three block-2 links", 105, [[0, 1, 1, 0], [0, 0, 1, 1], [0, 1, 0, 1]]),
     // Rule 146 onto 128 at block 3 (Israeli & Goldenfeld, PRE 73, 026203, 2006), then 128 at block 2 and block 1.
     chainOf("bench: rule 146 at blocks 3, 2, 1", 146, [[0, 0, 0, 0, 0, 0, 0, 1], [0, 0, 0, 1], [0, 1]]),
-    // Three block-3 links: the composite (block 27) is past the direct check's bounds, so the links alone certify it.
-    chainOf("bench: rule 146 at blocks 3, 3, 3", 146, [[0, 0, 0, 0, 0, 0, 0, 1], [0, 0, 0, 0, 0, 0, 0, 1], [0, 0, 0, 0, 0, 0, 0, 1]]),
+    // (Three block-3 links would compose to block 27, past the 256-state alphabet a composite may have: refused.)
   ];
   for (const w of chains) {
     const calls: string[] = [];
@@ -135,7 +134,7 @@ try {
     const took = performance.now() - t;
     console.log(`  calls (ms): ${calls.join("; ")}`);
     if (!outcome.ok || !outcome.chainId) throw new Error(`${w.chain.name}: ${outcome.message}`);
-    const how = (outcome.message.match(/\((links[^)]*)\)/) ?? [])[1] ?? "";
+    const how = (outcome.message.match(/\(([^)]*)\)/) ?? [])[1] ?? "";
     console.log(`${w.chain.name}: 3 new links + chain certified and stored in ${ms(took)} [${how}] (target < 2000 ms: ${took < 2000 ? "met" : "NOT met"}; ${(took / base).toFixed(1)}× baseline request)`);
   }
 

@@ -80,7 +80,7 @@ describe("certifyWorkbench", () => {
     const { api, calls, requests } = fakeApi();
     const actions: WbAction[] = [];
     const outcome = await certifyWorkbench(parityTwice, api, (a) => actions.push(a));
-    expect(outcome).toEqual({ ok: true, message: "Every map and the chain of 2 are certified (links+composite).", chainId: "chain1" });
+    expect(outcome).toEqual({ ok: true, message: "Every map and the chain of 2 are certified (each link and the composite verified).", chainId: "chain1" });
     expect(calls).toEqual(["POST /api/chains/workbench"]);
     expect(requests[0]).toEqual({
       models: [{ key: "a", model: { kind: "eca", rule: 105 } }, { key: "b" }, { key: "c" }],

@@ -1,3 +1,4 @@
+import { verificationName } from "@/components/atlas/chainVerification";
 import type { Model } from "@/lib/models";
 import { chainPath, type WbAction, type WbEdge, type Workbench } from "./workbenchState";
 
@@ -139,7 +140,7 @@ function outcomeOf(w: Workbench, answer: WorkbenchAnswer): CertifyOutcome {
   const chain = answer.chain;
   if (chain?.chainId) {
     const links = chainPath(w).ok ? (chainPath(w) as { edges: WbEdge[] }).edges.length : 0;
-    return { ok: true, message: `Every map and the chain of ${links} are certified (${chain.verification}).`, chainId: chain.chainId };
+    return { ok: true, message: `Every map and the chain of ${links} are certified (${verificationName(chain.verification ?? "")}).`, chainId: chain.chainId };
   }
   if (chain) return { ok: false, message: `The chain was not stored: ${chain.message ?? chain.status}`, chainId: null };
   const path = chainPath(w);
@@ -192,5 +193,5 @@ async function composeAsJob(name: string, links: WbEdge[], api: ApiCall, apply: 
   const result = done.result as { chainId?: string; composite?: string; verification?: string } | null;
   if (done.status !== "succeeded" || !result?.chainId) return { ok: false, message: `The chain was not stored: ${done.error ?? done.status}`, chainId: null };
   apply({ type: "chain-result", id: result.chainId, address: result.composite ?? "" });
-  return { ok: true, message: `Every map and the chain of ${links.length} are certified (${result.verification}, checked as a job).`, chainId: result.chainId };
+  return { ok: true, message: `Every map and the chain of ${links.length} are certified (${verificationName(result.verification ?? "")}, checked as a job).`, chainId: result.chainId };
 }

@@ -479,7 +479,7 @@ function BlockColumns({ partition, labels, readOnly, onMove }: { partition: numb
             const state = Number(e.dataTransfer.getData("text/plain"));
             if (!readOnly && Number.isInteger(state)) onMove(state, block);
           }}
-          className={`min-h-16 min-w-[4.5rem] flex-1 space-y-1 rounded border p-1 text-xs ${over === block ? "border-tide-600 bg-tide-50" : states.length ? "border-line-strong bg-paper" : "border-dashed border-line-strong"}`}
+          className={`min-h-16 w-[5.5rem] flex-none space-y-1 rounded border p-1 text-xs ${over === block ? "border-tide-600 bg-tide-50" : states.length ? "border-line-strong bg-paper" : "border-dashed border-line-strong"}`}
         >
           <div className="text-[10px] font-semibold text-ink-faint">{states.length ? `block ${block + 1}` : "new block"}</div>
           {states.map((i) => (

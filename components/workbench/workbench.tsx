@@ -142,21 +142,12 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       setNotice("The models of that map could not be read.");
       return;
     }
-    const fresh = (ref: { id: string; name: string }, model: Model, below: string | null): WbNode => ({ id: newId("n"), name: ref.name, description: "", model, modelId: ref.id, note: "", ...placeNew(w, below) });
-    const source = w.nodes.find((n) => n.modelId === m.source.id) ?? fresh(m.source, (s.body as { model: Model }).model, null);
-    // The target gets a node of its own unless one of its model has no map into it yet (a map may go from a model to itself).
-    const free = w.nodes.find((n) => n.modelId === m.target.id && n.id !== source.id && !w.edges.some((e) => e.target === n.id));
-    const target = free ?? fresh(m.target, (t.body as { model: Model }).model, source.id);
-    for (const n of [source, target]) dispatch({ type: "add-node", node: n });
-    const refusal = edgeRefusal({ ...w, nodes: [...w.nodes, source, target] }, source.id, target.id);
-    if (refusal) {
-      setNotice(refusal);
-      return;
-    }
-    const spec: MapSpec | null = null;
     dispatch({
-      type: "add-edge",
-      edge: { id: newId("e"), source: source.id, target: target.id, spec, state: "certified", mapId: m.id, certificateAddress: null, problem: null },
+      type: "add-atlas-map",
+      map: { id: m.id, certificateAddress: null, spec: null },
+      source: { modelId: m.source.id, name: m.source.name, model: (s.body as { model: Model }).model },
+      target: { modelId: m.target.id, name: m.target.name, model: (t.body as { model: Model }).model },
+      ids: { source: newId("n"), target: newId("n"), edge: newId("e") },
     });
   }
 
@@ -289,7 +280,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
         </p>
       ) : null}
 
-      <div className="grid gap-3 lg:grid-cols-[17rem_minmax(0,1fr)_20rem]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-3 lg:grid-cols-[17rem_minmax(0,1fr)_20rem]">
         {!readOnly ? (
           <aside className="order-2 space-y-4 lg:order-1" aria-label="Add to the canvas">
             <section className="space-y-2 rounded-md border border-line bg-paper-raised p-2">
