@@ -23,8 +23,9 @@ import { modelName, nodeLabel, tryCanonical } from "./derivedModels";
 import { ruleOf, type JobProgress } from "./map-editor";
 import type { MapSpec, WbEdge, WbNode, Workbench } from "./workbenchState";
 
-export const NODE_WIDTH = 190;
-export const NODE_HEIGHT = 64;
+import { NODE_HEIGHT, NODE_WIDTH } from "./canvasSize";
+
+export { NODE_HEIGHT, NODE_WIDTH };
 
 type NodeData = { node: WbNode; selected: boolean; label: string };
 type EdgeData = { edge: WbEdge; job: JobProgress | null; rule: { k: number; r: number; table: number[] } | null };

@@ -63,9 +63,6 @@ export async function submitWorkbench({
     timing[phase] = now - t;
     t = now;
   };
-  // The links' checks are small and take the fast lane; the composite's takes a main-lane thread. Start one
-  // loading the checker now, while the links are checked, rather than after them (a cold thread takes ~1 s).
-  if (request.chain) void runVerification({ op: "address", certificate: null }, VERIFY_LIMITS, { ...owner, small: false }).catch(() => undefined);
   const modelWrites = await checkModels(request, owner, known);
   lap("models");
   const outcomes = new Map<string, MapOutcome>();

@@ -228,7 +228,7 @@ describe("the atlas as a theorist sees it", () => {
     await page.goto(`${server.url}/chains/new?maps=${mapIds["146-128"]}`);
     await page.waitForURL(/\/chains\/workbench\?maps=/);
     await page.getByText("Your role may not certify maps or store chains (contributor or higher).").waitFor();
-    await expect(page.locator('[data-node-name="ECA 146"]').count()).resolves.toBe(1);
+    await page.locator('[data-node-name="ECA 146"]').waitFor();
     await expect(page.getByRole("button", { name: "Certify maps and chain" }).count()).resolves.toBe(0);
     await page.context().close();
   });

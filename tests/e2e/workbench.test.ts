@@ -239,6 +239,8 @@ describe("the workbench", () => {
     const viewer = await signedIn("viewer");
     await viewer.goto(`${server.url}/chains/drafts/${draftId}`);
     await viewer.locator('[data-save-state="read-only"]').waitFor();
+    // React Flow draws the nodes once it has measured the canvas.
+    await viewer.locator('[data-node-name="ECA 146"]').waitFor();
     await expect(viewer.locator('[data-node-name="ECA 146"]').count()).resolves.toBe(1);
     await expect(viewer.getByRole("button", { name: "Certify maps and chain" }).count()).resolves.toBe(0);
     await expect(viewer.getByRole("button", { name: "Add to canvas" }).count()).resolves.toBe(0);
@@ -293,6 +295,7 @@ describe("the workbench", () => {
     const page = await signedIn("contributor", 390);
     await page.goto(`${server.url}/chains/workbench`);
     await addEca(page, 90);
+    await page.locator('[data-node-name="ECA 90"]').waitFor();
     await shot(page, "5-narrow");
     await expect(page.locator('[data-node-name="ECA 90"]').count()).resolves.toBe(1);
     // Nothing widens the page past the phone's 390 px (long model names in the lists are cut, not spread).

@@ -3,7 +3,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/atlas/page-header";
 import { canvasFromMaps, type AtlasMapView } from "@/components/workbench/canvasFromMaps";
 import { Workbench } from "@/components/workbench/workbench";
-import { NODE_HEIGHT, NODE_WIDTH } from "@/components/workbench/workbench-canvas";
+import { NODE_HEIGHT, NODE_WIDTH } from "@/components/workbench/canvasSize";
 import { emptyWorkbench } from "@/components/workbench/workbenchState";
 import { getMap, getModel } from "@/db/queries/atlas";
 import type { ModelInput } from "@/lib/models";
