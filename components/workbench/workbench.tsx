@@ -297,7 +297,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
         <div className={`order-1 h-[460px] rounded-lg border border-line-strong bg-paper lg:order-2 lg:h-[640px] ${readOnly ? "lg:col-span-2" : ""}`} aria-label="Canvas" data-testid="workbench-canvas">
           {w.nodes.length === 0 ? (
             <p className="flex h-full items-center justify-center p-6 text-center text-sm text-ink-faint">
-              {readOnly ? "This draft is empty." : "Make a model on the left, or add a certified map from the atlas. Then select a node to map it onto a new one."}
+              {readOnly ? "This draft is empty." : "Make a model, or add a certified map from the atlas (beside the canvas; below it on a narrow screen). Then select a node to map it onto a new one."}
             </p>
           ) : (
             <WorkbenchCanvas
