@@ -202,7 +202,7 @@ describe("the atlas as a theorist sees it", () => {
     await page.goto(`${server.url}/chains/new?maps=${mapIds["146-128"]},${mapIds["90-90"]}`);
     await page.waitForURL(/\/chains\/workbench\?maps=/);
     await page.getByText("The maps form more than one path.", { exact: false }).waitFor();
-    await expect(page.locator('[data-edge-label="certified"]').count()).resolves.toBe(2);
+    await expect.poll(() => page.locator('[data-edge-label="certified"]').count()).toBe(2);
 
     const list = page.getByRole("navigation", { name: "Nodes and maps" });
     await list.getByRole("button", { name: /^ECA 90 → ECA 90/ }).click();
