@@ -12,6 +12,7 @@ import { searchAtlas, type MapKind, type ModelKind } from "@/db/queries/atlas";
 import { MAP_KINDS, MODEL_KINDS } from "@/db/schema";
 import { isAppError } from "@/server/errors";
 import { getWorkspaceContext } from "@/server/context";
+import { CompositeMaps } from "@/app/chains/composite-edges";
 
 export const metadata: Metadata = { title: "Atlas" };
 
@@ -100,6 +101,7 @@ async function Results({ workspaceId, filters, view }: { workspaceId: string; fi
     <div className="space-y-3">
       <MapTable rows={rows} otherHeading="Coarse-grains onto" empty="" />
       {pager}
+      {filters.cursor ? null : <CompositeMaps workspaceId={workspaceId} kind={filters.mapKind} block={filters.block} q={filters.q} />}
     </div>
   );
 }

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { PageHeader } from "@/components/atlas/page-header";
 import { buttonClass } from "@/components/ui/button";
 import { Panel } from "@/components/ui/panel";
+import { distinctNames } from "@/components/ui/distinctNames";
 import { listChainModels, searchChains } from "@/db/queries/chain-list";
 import { listVisibleDrafts } from "@/db/queries/drafts";
 import { getWorkspaceContext } from "@/server/context";
@@ -45,9 +46,6 @@ export default async function ChainsPage({ searchParams }: Props) {
             <Link href="/chains/workbench" className={buttonClass("primary")}>
               Open the workbench
             </Link>
-            <Link href="/chains/new" className={buttonClass("secondary")}>
-              Chain certified maps
-            </Link>
           </>
         }
       />
@@ -65,9 +63,9 @@ export default async function ChainsPage({ searchParams }: Props) {
           </label>
           <select id="chains-model" name="model" defaultValue={model} className="rounded border border-line-strong bg-paper-raised px-2 py-1 text-sm">
             <option value="">any model</option>
-            {models.map((m) => (
+            {distinctNames(models).map((m) => (
               <option key={m.id} value={m.id}>
-                {m.name}
+                {m.label}
               </option>
             ))}
           </select>

@@ -18,6 +18,10 @@ type Result = {
   verification?: string;
   summary?: string;
   counterexample?: unknown;
+  /** verify-map: the map it stored, or why not. */
+  mapId?: string;
+  status?: string;
+  message?: string;
 };
 
 const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
@@ -74,6 +78,16 @@ export function JobResultView({ result, params }: { result: unknown; params: unk
       </li>,
     );
   } else if (r.certificate?.refused) items.push(<li key="refused">The lumping was refused: {r.certificate.refused}</li>);
+  if (r.mapId) {
+    items.push(
+      <li key="one-map">
+        <Link href={`/atlas/maps/${r.mapId}`} className="text-tide-800 underline">
+          The certified map
+        </Link>{" "}
+        ({r.status === "existing" ? "already in the atlas" : "new"}){r.summary ? `: ${r.summary}` : ""}.
+      </li>,
+    );
+  } else if (r.message) items.push(<li key="message">{r.message}</li>);
   if (r.searchRecord) items.push(<li key="record">Search record: {r.searchRecord}.</li>);
   if (r.mapIds?.length) {
     items.push(
@@ -102,7 +116,7 @@ export function JobResultView({ result, params }: { result: unknown; params: unk
         .
       </li>,
     );
-  } else if (r.summary) items.push(<li key="summary">{r.summary}</li>);
+  } else if (r.summary && !r.mapId) items.push(<li key="summary">{r.summary}</li>);
   if (r.skipped?.length) items.push(<li key="skipped">{plural(r.skipped.length, "finding")} skipped.</li>);
   return (
     <div className="space-y-2" data-job-result>

@@ -2,6 +2,7 @@
 
 import { useActionState, useState } from "react";
 import { FormMessage } from "@/components/ui/form-message";
+import { distinctNames } from "@/components/ui/distinctNames";
 import type { FormState } from "@/components/ui/form-state";
 import { SubmitButton } from "@/components/ui/submit-button";
 
@@ -69,9 +70,9 @@ export function AddWatchForm({ models, kinds, action }: { models: { id: string; 
             {scope === "onto" ? "Model" : "Chain"}
           </label>
           <select id="watch-model" name="modelId" className={select}>
-            {choices.map((m) => (
+            {distinctNames(choices).map((m) => (
               <option key={m.id} value={m.id}>
-                {m.name}
+                {m.label}
               </option>
             ))}
           </select>

@@ -9,6 +9,7 @@ import { browserApi, runJob, type JobSnapshot } from "./api";
 import { nodeLabel, tryCanonical } from "./derivedModels";
 import { Field, inputClass } from "./model-forms";
 import { nodeShape, type NodeShape } from "./nodeShape";
+import { moveState, partitionColumns } from "./partitionColumns";
 import { blockCells, presetProjection, PRESETS, projectionIssue, type PresetName } from "./projectionPresets";
 import type { MapSpec, WbAction, WbEdge, Workbench } from "./workbenchState";
 
@@ -441,14 +442,64 @@ function PartitionEditor({
         </tbody>
       </table>
       <p className="text-xs text-ink-faint">
-        {blocks} block{blocks === 1 ? "" : "s"}.
+        {blocks} block{blocks === 1 ? "" : "s"}.{readOnly ? "" : " Drag a state onto a block, or type its block number above."}
       </p>
+      <BlockColumns partition={spec.partition} labels={labels} readOnly={readOnly} onMove={(state, block) => onChange({ kind: "lumping", partition: moveState(spec.partition, state, block) })} />
       {!readOnly ? (
         <button type="button" onClick={suggest} disabled={busy || sourceModel?.kind !== "markov"} className={buttonClass("secondary", "px-2 py-1 text-xs")}>
           {busy ? "Searching…" : "Suggest coarsest lumping"}
         </button>
       ) : null}
       {error ? <p className="text-xs text-brick-700">{error}</p> : null}
+    </div>
+  );
+}
+
+/** The blocks as columns of state chips: a chip dragged onto a column moves that state into the block. */
+function BlockColumns({ partition, labels, readOnly, onMove }: { partition: number[]; labels: string[]; readOnly: boolean; onMove: (state: number, block: number) => void }) {
+  const [over, setOver] = useState<number | null>(null);
+  return (
+    <div className="flex flex-wrap gap-1.5" role="group" aria-label="Blocks of the lumping">
+      {partitionColumns(partition).map(({ block, states }) => (
+        <div
+          key={block}
+          data-block-column={block + 1}
+          aria-label={states.length ? `Block ${block + 1}` : `New block ${block + 1}`}
+          role="list"
+          onDragOver={(e) => {
+            if (readOnly) return;
+            e.preventDefault();
+            e.dataTransfer.dropEffect = "move";
+            setOver(block);
+          }}
+          onDragLeave={() => setOver((b) => (b === block ? null : b))}
+          onDrop={(e) => {
+            e.preventDefault();
+            setOver(null);
+            const state = Number(e.dataTransfer.getData("text/plain"));
+            if (!readOnly && Number.isInteger(state)) onMove(state, block);
+          }}
+          className={`min-h-16 w-[5.5rem] flex-none space-y-1 rounded border p-1 text-xs ${over === block ? "border-tide-600 bg-tide-50" : states.length ? "border-line-strong bg-paper" : "border-dashed border-line-strong"}`}
+        >
+          <div className="text-[10px] font-semibold text-ink-faint">{states.length ? `block ${block + 1}` : "new block"}</div>
+          {states.map((i) => (
+            <div
+              key={i}
+              role="listitem"
+              draggable={!readOnly}
+              data-state-chip={labels[i]}
+              aria-label={`State ${labels[i]}, in block ${block + 1}`}
+              onDragStart={(e) => {
+                e.dataTransfer.setData("text/plain", String(i));
+                e.dataTransfer.effectAllowed = "move";
+              }}
+              className={`rounded-full bg-paper-raised px-2 py-0.5 font-mono ring-1 ring-line-strong ${readOnly ? "" : "cursor-grab active:cursor-grabbing"}`}
+            >
+              {labels[i]}
+            </div>
+          ))}
+        </div>
+      ))}
     </div>
   );
 }

@@ -23,8 +23,9 @@ import { modelName, nodeLabel, tryCanonical } from "./derivedModels";
 import { ruleOf, type JobProgress } from "./map-editor";
 import type { MapSpec, WbEdge, WbNode, Workbench } from "./workbenchState";
 
-export const NODE_WIDTH = 190;
-export const NODE_HEIGHT = 64;
+import { NODE_HEIGHT, NODE_WIDTH } from "./canvasSize";
+
+export { NODE_HEIGHT, NODE_WIDTH };
 
 type NodeData = { node: WbNode; selected: boolean; label: string };
 type EdgeData = { edge: WbEdge; job: JobProgress | null; rule: { k: number; r: number; table: number[] } | null };
@@ -70,6 +71,11 @@ export function specText(spec: MapSpec | null): string {
   }
 }
 
+/** An edge in words: its parameters, or for a map taken from the atlas that it is one (its certificate has the rest). */
+export function edgeText(edge: WbEdge): string {
+  return edge.spec === null && edge.state === "certified" ? "certified map from the atlas" : specText(edge.spec);
+}
+
 function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, markerEnd, selected }: EdgeProps<EdgeData>) {
   const [path, labelX, labelY] = getBezierPath({ sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition });
   const edge = data!.edge;
@@ -85,7 +91,7 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
           style={{ transform: `translate(${NODE_WIDTH / 2 + 14}px, -50%) translate(${labelX}px, ${labelY}px)` }}
           data-edge-label={edge.state}
         >
-          <div className="font-mono text-ink-soft">{specText(edge.spec)}</div>
+          <div className="font-mono text-ink-soft">{edgeText(edge)}</div>
           <span className={`inline-block rounded-full px-1.5 font-semibold ring-1 ${style.chip}`}>{style.word}</span>
           {data!.job ? (
             <div className="space-y-0.5" role="status">
@@ -115,6 +121,16 @@ function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targe
   );
 }
 
+/** The node or edge a key was pressed on: React Flow marks node wrappers with data-id and edges with data-testid. */
+function keyboardTarget(target: EventTarget | null): { type: "node" | "edge"; id: string } | null {
+  if (!(target instanceof Element)) return null;
+  const node = target.closest(".react-flow__node");
+  const nodeId = node?.getAttribute("data-id");
+  if (nodeId) return { type: "node", id: nodeId };
+  const edgeId = target.closest(".react-flow__edge")?.getAttribute("data-testid")?.replace(/^rf__edge-/, "");
+  return edgeId ? { type: "edge", id: edgeId } : null;
+}
+
 const nodeTypes = { model: ModelNode };
 const edgeTypes = { map: MapEdge };
 
@@ -127,6 +143,7 @@ export function WorkbenchCanvas({
   onSelect,
   onConnect,
   onMoved,
+  onOpen,
 }: {
   workbench: Workbench;
   selected: { type: "node" | "edge"; id: string } | null;
@@ -135,6 +152,8 @@ export function WorkbenchCanvas({
   onSelect: (s: { type: "node" | "edge"; id: string } | null) => void;
   onConnect: (source: string, target: string) => void;
   onMoved: (id: string, x: number, y: number) => void;
+  /** After a node or edge was chosen by keyboard: move the focus to its inspector. */
+  onOpen?: () => void;
 }) {
   const nodes = useMemo<Node<NodeData>[]>(
     () =>
@@ -157,7 +176,7 @@ export function WorkbenchCanvas({
         selected: selected?.type === "edge" && selected.id === e.id,
         markerEnd: { type: MarkerType.ArrowClosed, color: STYLE[e.state].stroke },
         data: { edge: e, job: jobs[e.id] ?? null, rule: e.state === "refused" ? ruleOf(tryCanonical(workbench.nodes.find((n) => n.id === e.source)?.model ?? null)) : null },
-        ariaLabel: `Map ${specText(e.spec)}, ${STYLE[e.state].word}`,
+        ariaLabel: `Map ${edgeText(e)}, ${STYLE[e.state].word}`,
       })),
     [workbench.edges, workbench.nodes, selected, jobs],
   );
@@ -174,6 +193,15 @@ export function WorkbenchCanvas({
       onNodeClick={(_, n) => onSelect({ type: "node", id: n.id })}
       onEdgeClick={(_, e) => onSelect({ type: "edge", id: e.id })}
       onPaneClick={() => onSelect(null)}
+      onKeyDown={(e) => {
+        // Tab reaches each node and edge (React Flow makes them focusable); Enter or Space opens its inspector.
+        if (e.key !== "Enter" && e.key !== " ") return;
+        const hit = keyboardTarget(e.target);
+        if (!hit) return;
+        e.preventDefault();
+        onSelect(hit);
+        onOpen?.();
+      }}
       onConnect={(c: Connection) => (c.source && c.target ? onConnect(c.source, c.target) : undefined)}
       onNodeDragStop={(_, n) => onMoved(n.id, n.position.x, n.position.y)}
       fitView

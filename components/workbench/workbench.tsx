@@ -12,7 +12,7 @@ import { MapEditor, STATE_CLASS, STATE_TEXT, type JobProgress } from "./map-edit
 import { MapSearch, type AtlasMap } from "./map-search";
 import { AddModelPanel, inputClass, type NewModel } from "./model-forms";
 import { NodeInspector } from "./node-inspector";
-import { NODE_HEIGHT, NODE_WIDTH, specText, WorkbenchCanvas } from "./workbench-canvas";
+import { edgeText, NODE_HEIGHT, NODE_WIDTH, WorkbenchCanvas } from "./workbench-canvas";
 import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbNode, type Workbench as Canvas } from "./workbenchState";
 
 export type DraftInfo = { id: string; name: string; shared: boolean; mine: boolean; ownerName: string };
@@ -49,6 +49,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const [outcome, setOutcome] = useState<{ ok: boolean; message: string; chainId: string | null } | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const flow = useReactFlow();
+  const inspectorRef = useRef<HTMLElement>(null);
   const readOnly = !canEdit;
 
   // Autosave: the canvas as it stands, a moment after the last edit (a new draft on the first one).
@@ -141,21 +142,12 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       setNotice("The models of that map could not be read.");
       return;
     }
-    const find = (modelId: string) => w.nodes.find((n) => n.modelId === modelId);
-    const nodeFor = (ref: { id: string; name: string }, model: Model, below: string | null): WbNode =>
-      find(ref.id) ?? { id: newId("n"), name: ref.name, description: "", model, modelId: ref.id, note: "", ...placeNew(w, below) };
-    const source = nodeFor(m.source, (s.body as { model: Model }).model, null);
-    const target = nodeFor(m.target, (t.body as { model: Model }).model, source.id);
-    for (const n of [source, target]) dispatch({ type: "add-node", node: n });
-    const refusal = edgeRefusal({ ...w, nodes: [...w.nodes, source, target] }, source.id, target.id);
-    if (refusal) {
-      setNotice(refusal);
-      return;
-    }
-    const spec: MapSpec | null = m.kind === "decimation" || m.kind === "iterate" ? { kind: m.kind, steps: m.block ?? 1 } : null;
     dispatch({
-      type: "add-edge",
-      edge: { id: newId("e"), source: source.id, target: target.id, spec, state: "certified", mapId: m.id, certificateAddress: null, problem: null },
+      type: "add-atlas-map",
+      map: { id: m.id, certificateAddress: null, spec: null },
+      source: { modelId: m.source.id, name: m.source.name, model: (s.body as { model: Model }).model },
+      target: { modelId: m.target.id, name: m.target.name, model: (t.body as { model: Model }).model },
+      ids: { source: newId("n"), target: newId("n"), edge: newId("e") },
     });
   }
 
@@ -168,12 +160,12 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     setCertifying(true);
     setOutcome(null);
     try {
-      const chainEdges = path.ok ? path.edges.map((e) => e.id) : [];
       const jobs = {
         pollMs: 700,
         wait: (ms: number) => new Promise<void>((r) => setTimeout(r, ms)),
-        onProgress: (progress: number, item: string | null) => {
-          for (const id of chainEdges) onJob(id, progress >= 1 ? null : { progress, label: `composite check (job): ${Math.round(progress * 100)}%${item ? ` · ${item}` : ""}` });
+        onProgress: (progress: number, item: string | null, edgeIds: string[]) => {
+          const what = edgeIds.length > 1 ? "composite check" : "map check";
+          for (const id of edgeIds) onJob(id, progress >= 1 ? null : { progress, label: `${what} (job): ${Math.round(progress * 100)}%${item ? ` · ${item}` : ""}` });
         },
       };
       const result = await certifyWorkbench(w, browserApi, dispatch, { jobs });
@@ -288,7 +280,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
         </p>
       ) : null}
 
-      <div className="grid gap-3 lg:grid-cols-[17rem_minmax(0,1fr)_20rem]">
+      <div className="grid grid-cols-[minmax(0,1fr)] gap-3 lg:grid-cols-[17rem_minmax(0,1fr)_20rem]">
         {!readOnly ? (
           <aside className="order-2 space-y-4 lg:order-1" aria-label="Add to the canvas">
             <section className="space-y-2 rounded-md border border-line bg-paper-raised p-2">
@@ -305,7 +297,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
         <div className={`order-1 h-[460px] rounded-lg border border-line-strong bg-paper lg:order-2 lg:h-[640px] ${readOnly ? "lg:col-span-2" : ""}`} aria-label="Canvas" data-testid="workbench-canvas">
           {w.nodes.length === 0 ? (
             <p className="flex h-full items-center justify-center p-6 text-center text-sm text-ink-faint">
-              {readOnly ? "This draft is empty." : "Make a model on the left, or add a certified map from the atlas. Then select a node to map it onto a new one."}
+              {readOnly ? "This draft is empty." : "Make a model, or add a certified map from the atlas (beside the canvas; below it on a narrow screen). Then select a node to map it onto a new one."}
             </p>
           ) : (
             <WorkbenchCanvas
@@ -316,12 +308,13 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
               onSelect={setSelected}
               onConnect={connect}
               onMoved={(id, x, y) => dispatch({ type: "positions", positions: { [id]: { x, y } } })}
+              onOpen={() => requestAnimationFrame(() => inspectorRef.current?.focus())}
             />
           )}
         </div>
 
         <aside className="order-3 space-y-3" aria-label="Selection and certify">
-          <section className="space-y-2 rounded-md border border-line bg-paper-raised p-2">
+          <section ref={inspectorRef} tabIndex={-1} aria-label="Inspector" className="space-y-2 rounded-md border border-line bg-paper-raised p-2 outline-none focus-visible:ring-2 focus-visible:ring-tide-500" data-inspector>
             {selectedNode ? (
               <NodeInspector
                 key={selectedNode.id}
@@ -370,7 +363,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
                 return (
                   <li key={e.id}>
                     <button type="button" onClick={() => setSelected({ type: "edge", id: e.id })} className="text-left hover:underline" aria-current={selected?.id === e.id ? "true" : undefined}>
-                      {nodeLabel(w.nodes, e.source)} → {nodeLabel(w.nodes, e.target)}: {specText(e.spec)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
+                      {nodeLabel(w.nodes, e.source)} → {nodeLabel(w.nodes, e.target)}: {edgeText(e)} · <span className={STATE_CLASS[e.state]}>{STATE_TEXT[e.state].split(" —")[0]}</span>
                     </button>
                   </li>
                 );
@@ -396,7 +389,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
                 </button>
               </>
             ) : (
-              <p className="text-xs text-ink-faint">{canCertify ? "Duplicate this draft to change and certify it." : "Your role may read drafts but not certify (contributor or higher)."}</p>
+              <p className="text-xs text-ink-faint">{canCertify ? "Duplicate this draft to change and certify it." : "Your role may not certify maps or store chains (contributor or higher)."}</p>
             )}
             {outcome ? (
               <p className={`text-xs ${outcome.ok ? "text-moss-700" : "text-brick-700"}`} role="status" data-certify-outcome={outcome.ok ? "ok" : "failed"}>

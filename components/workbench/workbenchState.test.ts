@@ -126,3 +126,35 @@ describe("nodeLabel", () => {
     expect(nodes.map((n) => nodeLabel(nodes, n.id))).toEqual(["a", "model to be derived 1", "model to be derived 2", "ECA 90"]);
   });
 });
+
+describe("add-atlas-map", () => {
+  const end = (rule: number) => ({ modelId: `m${rule}`, name: `ECA ${rule}`, model: { kind: "eca" as const, rule } });
+  const add = (id: string, from: number, to: number, n: number) =>
+    ({ type: "add-atlas-map", map: { id, certificateAddress: null, spec: null }, source: end(from), target: end(to), ids: { source: `s${n}`, target: `t${n}`, edge: `e${n}` } }) as const;
+
+  it("continues the path where it ends, even when the second map arrives before the first was drawn", () => {
+    // Two maps added in quick succession are both resolved against the canvas as it is when each applies.
+    let h = initialHistory();
+    h = workbenchReducer(h, add("a", 146, 128, 1));
+    h = workbenchReducer(h, add("b", 128, 128, 2));
+    expect(h.present.nodes.map((n) => [n.id, n.modelId])).toEqual([
+      ["s1", "m146"],
+      ["t1", "m128"],
+      ["t2", "m128"],
+    ]);
+    expect(h.present.edges.map((e) => [e.source, e.target, e.state, e.mapId])).toEqual([
+      ["s1", "t1", "certified", "a"],
+      ["t1", "t2", "certified", "b"],
+    ]);
+    expect(chainPath(h.present).ok).toBe(true);
+    // Undo takes the last map and its new node away.
+    expect(workbenchReducer(h, { type: "undo" }).present.nodes.map((n) => n.id)).toEqual(["s1", "t1"]);
+  });
+
+  it("adds the same map from the same node only once", () => {
+    let h = workbenchReducer(initialHistory(), add("a", 146, 128, 1));
+    h = workbenchReducer(h, add("a", 146, 128, 2));
+    expect(h.present.edges).toHaveLength(1);
+    expect(h.present.nodes).toHaveLength(2);
+  });
+});

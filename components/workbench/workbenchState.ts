@@ -1,12 +1,9 @@
 import type { ModelInput } from "@/lib/models";
 
-/** A map's parameters as the person chose them; `null` until a kind is chosen. */
-export type MapSpec =
-  | { kind: "projection"; block: number; projection: number[] }
-  | { kind: "lumping"; partition: number[] }
-  | { kind: "decimation"; steps: number }
-  | { kind: "iterate"; steps: number }
-  | { kind: "blocking"; block: number };
+import type { MapSpec } from "@/lib/workbench";
+import { placeNew } from "./layoutWorkbench";
+
+export type { MapSpec };
 
 /** certified: in the atlas; proposed: drawn, not checked; checking: at the server; refused: checked and fails. */
 export type EdgeState = "proposed" | "checking" | "certified" | "refused";
@@ -43,6 +40,9 @@ export type Workbench = {
   chain: { name: string; id: string | null; address: string | null };
 };
 
+/** One end of a map from the atlas: a stored model. */
+export type AtlasEnd = { modelId: string; name: string; model: ModelInput };
+
 export type History = { past: Workbench[]; present: Workbench; future: Workbench[] };
 
 export type WbAction =
@@ -54,6 +54,8 @@ export type WbAction =
   | { type: "remove-edge"; id: string }
   | { type: "positions"; positions: Record<string, { x: number; y: number }> }
   | { type: "chain-name"; name: string }
+  /** A certified map of the atlas dropped in: its ends resolved against the canvas as it is when applied. */
+  | { type: "add-atlas-map"; map: { id: string; certificateAddress: string | null; spec: MapSpec | null }; source: AtlasEnd; target: AtlasEnd; ids: { source: string; target: string; edge: string } }
   /** Server answers: applied to the present, not undoable (undo must not un-certify what the atlas holds). */
   | { type: "edge-result"; id: string; patch: Partial<Pick<WbEdge, "state" | "mapId" | "certificateAddress" | "problem">> }
   | { type: "node-result"; id: string; patch: Partial<Pick<WbNode, "model" | "modelId" | "name">> }
@@ -83,6 +85,29 @@ export function edgeRefusal(w: Workbench, source: string, target: string): strin
   if (w.edges.some((e) => e.source === source && e.target === target)) return "These two nodes are already joined by a map.";
   if (w.edges.some((e) => e.target === target)) return "That node already has a map into it; its model is determined by that map.";
   return null;
+}
+
+/**
+ * A certified map from the atlas onto the canvas. Its source is the node of that model where a path ends
+ * (no map out of it), else any node of that model, else a new one; its target is a node of that model with
+ * no map into it yet, else a new one (so a map from a model to itself, or a second path, gets its own node).
+ */
+function addAtlasMap(w: Workbench, a: Extract<WbAction, { type: "add-atlas-map" }>): Workbench {
+  const fresh = (end: AtlasEnd, id: string, at: { x: number; y: number }): WbNode => ({ id, name: end.name, description: "", model: end.model, modelId: end.modelId, note: "", ...at });
+  const ofModel = w.nodes.filter((n) => n.modelId === a.source.modelId);
+  const existing = ofModel.find((n) => !w.edges.some((e) => e.source === n.id)) ?? ofModel[0];
+  const source = existing ?? fresh(a.source, a.ids.source, placeNew(w, null));
+  const withSource = existing ? w : { ...w, nodes: [...w.nodes, source] };
+  if (w.edges.some((e) => e.source === source.id && e.mapId === a.map.id)) return w;
+  const free = withSource.nodes.find((n) => n.modelId === a.target.modelId && n.id !== source.id && !w.edges.some((e) => e.target === n.id));
+  const target = free ?? fresh(a.target, a.ids.target, placeNew(withSource, source.id));
+  const edge: WbEdge = { id: a.ids.edge, source: source.id, target: target.id, spec: a.map.spec, state: "certified", mapId: a.map.id, certificateAddress: a.map.certificateAddress, problem: null };
+  return {
+    ...withSource,
+    nodes: free ? withSource.nodes : [...withSource.nodes, target],
+    edges: [...w.edges, edge],
+    chain: { ...w.chain, id: null, address: null },
+  };
 }
 
 /** One edit of the canvas; returns the same object when nothing changes. */
@@ -127,6 +152,8 @@ export function applyEdit(w: Workbench, action: WbAction): Workbench {
       return { ...w, nodes: w.nodes.map((n) => (action.positions[n.id] ? { ...n, ...action.positions[n.id] } : n)) };
     case "chain-name":
       return { ...w, chain: { ...w.chain, name: action.name } };
+    case "add-atlas-map":
+      return addAtlasMap(w, action);
     case "edge-result":
       return { ...w, edges: w.edges.map((e) => (e.id === action.id ? { ...e, ...action.patch } : e)) };
     case "node-result":
@@ -140,7 +167,7 @@ export function applyEdit(w: Workbench, action: WbAction): Workbench {
   }
 }
 
-const UNDOABLE = new Set<WbAction["type"]>(["add-node", "update-node", "remove-node", "add-edge", "set-spec", "remove-edge", "positions", "chain-name"]);
+const UNDOABLE = new Set<WbAction["type"]>(["add-atlas-map", "add-node", "update-node", "remove-node", "add-edge", "set-spec", "remove-edge", "positions", "chain-name"]);
 
 /** The canvas with undo and redo: each undoable edit pushes the state before it; server answers do not. */
 export function workbenchReducer(h: History, action: WbAction): History {

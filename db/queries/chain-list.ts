@@ -88,10 +88,10 @@ export async function searchChains({
 }
 
 /** The models that some chain of the workspace passes through, by name: the choices of the model filter. */
-export async function listChainModels({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<{ id: string; name: string }[]> {
+export async function listChainModels({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<{ id: string; name: string; kind: string; address: string }[]> {
   return withDb("listing chain models", async () => {
     const rows = await db
-      .selectDistinct({ id: models.id, name: models.name })
+      .selectDistinct({ id: models.id, name: models.name, kind: models.kind, address: models.address })
       .from(chainLinks)
       .innerJoin(chains, eq(chains.id, chainLinks.chainId))
       .innerJoin(maps, eq(maps.id, chainLinks.mapId))
@@ -110,7 +110,39 @@ export type CompositeEdge = ChainListItem & { compositeKind: string; compositeBl
  */
 export async function listCompositeEdges({ db = getDatabase(), workspaceId, modelId }: { db?: Executor; workspaceId: string; modelId: string }): Promise<CompositeEdge[]> {
   const { items } = await searchChains({ db, workspaceId, modelId, pageSize: 100 });
-  const ends = items.filter((c) => c.source.id === modelId || c.target.id === modelId);
+  return withComposites(
+    db,
+    items.filter((c) => c.source.id === modelId || c.target.id === modelId),
+  );
+}
+
+/**
+ * The newest certified chains of a workspace as composite edges, for the atlas's maps list: filtered
+ * by the composite's kind and block, and by a part of the chain's or its end models' names.
+ */
+export async function listWorkspaceComposites({
+  db = getDatabase(),
+  workspaceId,
+  kind,
+  block,
+  q,
+  limit = 40,
+}: {
+  db?: Executor;
+  workspaceId: string;
+  kind?: string;
+  block?: number;
+  q?: string;
+  limit?: number;
+}): Promise<CompositeEdge[]> {
+  const { items } = await searchChains({ db, workspaceId, pageSize: 200 });
+  const needle = q?.trim().toLowerCase();
+  const named = needle ? items.filter((c) => [c.name, c.source.name, c.target.name].some((n) => n.toLowerCase().includes(needle))) : items;
+  const edges = await withComposites(db, named);
+  return edges.filter((e) => (kind === undefined || e.compositeKind === kind) && (block === undefined || e.compositeBlock === block)).slice(0, limit);
+}
+
+async function withComposites(db: Executor, ends: ChainListItem[]): Promise<CompositeEdge[]> {
   if (ends.length === 0) return [];
   return withDb("reading composite certificates", async () => {
     const rows = await db

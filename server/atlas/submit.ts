@@ -80,7 +80,7 @@ export async function ensureModel({
  * against the server bounds, answered 413 naming the bound; and whether the check is small enough
  * for the verifier's fast lane. Everything that computes on the data runs in a worker thread.
  */
-function admit(payload: unknown, field: string, owner: Owner): CheckOwner {
+export function admit(payload: unknown, field: string, owner: Owner): CheckOwner {
   const size = payloadSize(payload);
   const refusal = exceededServerBound(size, VERIFY_LIMITS.sizes, field);
   if (refusal?.status === 400) {

@@ -187,16 +187,24 @@ describe("the atlas as a theorist sees it", () => {
     await page.context().close();
   });
 
-  it("shows at the link where a chain breaks, and stores a sound chain only after the server verified it", async () => {
+  it("opens a chain's maps from the old chain address on the workbench, says when they do not form one chain, and stores a sound chain only after the server verified it", async () => {
     const page = await signedIn("contributor");
+    // The old chain editor's address (Ask's "Compose and certify this chain" used it) now opens the workbench.
     await page.goto(`${server.url}/chains/new?maps=${mapIds["146-128"]},${mapIds["90-90"]}`);
-    await page.getByText("Does not meet link 2: this link ends at ECA 128, link 2 starts at ECA 90.").waitFor();
-    await expect(page.getByRole("button", { name: "Verify and store chain" }).isDisabled()).resolves.toBe(true);
+    await page.waitForURL(/\/chains\/workbench\?maps=/);
+    await page.getByText("The maps form more than one path.", { exact: false }).waitFor();
+    await expect.poll(() => page.locator('[data-edge-label="certified"]').count()).toBe(2);
 
-    await page.getByRole("button", { name: "Remove link 2" }).click();
-    await page.getByRole("button", { name: /^Add ECA 128 → ECA 128/ }).click();
+    const list = page.getByRole("navigation", { name: "Nodes and maps" });
+    await list.getByRole("button", { name: /^ECA 90 → ECA 90/ }).click();
+    await page.getByRole("button", { name: "Remove this map" }).click();
+    await page.getByLabel("Search certified maps").fill("ECA 128");
+    await page.getByRole("button", { name: /^Add ECA 128 → ECA 128/ }).first().click();
+    await page.getByText("The maps form one chain of 2 links.", { exact: false }).waitFor();
     await page.fill("#chain-name", "Rule 146 to rule 128, then 128 at block 2");
-    await page.click("text=Verify and store chain");
+    await page.getByRole("button", { name: "Certify maps and chain" }).click();
+    await page.locator("[data-chain-link]").waitFor({ timeout: 60_000 });
+    await page.click("[data-chain-link]");
     await page.waitForURL(/\/chains\/[0-9a-f-]{36}$/, { timeout: 60_000 });
     const chainId = page.url().split("/").pop()!;
     const [stored] = await server.db.select().from(chains).where(eq(chains.id, chainId));
@@ -206,11 +214,13 @@ describe("the atlas as a theorist sees it", () => {
     await page.context().close();
   });
 
-  it("lets a viewer compose on the canvas but not store a chain", async () => {
+  it("shows a viewer a chain's maps on the workbench, read-only and without a certify button", async () => {
     const page = await signedIn("viewer");
     await page.goto(`${server.url}/chains/new?maps=${mapIds["146-128"]}`);
-    await page.getByText("Your role may not store chains (contributor or higher).").waitFor();
-    await expect(page.getByRole("button", { name: "Verify and store chain" }).isDisabled()).resolves.toBe(true);
+    await page.waitForURL(/\/chains\/workbench\?maps=/);
+    await page.getByText("Your role may not certify maps or store chains (contributor or higher).").waitFor();
+    await page.locator('[data-node-name="ECA 146"]').waitFor();
+    await expect(page.getByRole("button", { name: "Certify maps and chain" }).count()).resolves.toBe(0);
     await page.context().close();
   });
 });

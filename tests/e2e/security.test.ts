@@ -124,7 +124,7 @@ describe("security headers (probe item 11)", () => {
     page.on("console", (m) => {
       if (/Content Security Policy|Refused to/i.test(m.text())) violations.push(`${page.url()}: ${m.text()}`);
     });
-    const pages = ["/", "/dashboard", "/atlas", "/atlas/hierarchy", "/atlas/ask", `/atlas/maps/${mapId}`, `/atlas/models/${map.source.id}`, "/chains/new", "/jobs", "/settings/tokens", "/api-docs", "/sign-in"];
+    const pages = ["/", "/dashboard", "/atlas", "/atlas/hierarchy", "/atlas/ask", `/atlas/maps/${mapId}`, `/atlas/models/${map.source.id}`, "/chains/workbench", "/jobs", "/settings/tokens", "/api-docs", "/sign-in"];
     for (const path of pages) {
       const res = await page.goto(`${server.url}${path}`);
       expect(res?.status(), path).toBeLessThan(400);

@@ -43,6 +43,31 @@ async function selectInList(page: Page, name: string | RegExp) {
   await page.getByRole("navigation", { name: "Nodes and maps" }).getByRole("button", { name, exact: true }).last().click();
 }
 
+/** Presses Tab until the focus is inside `selector` (at most 80 presses); whether it got there. */
+async function tabUntil(page: Page, selector: string): Promise<boolean> {
+  for (let i = 0; i < 80; i++) {
+    await page.keyboard.press("Tab");
+    if (await page.evaluate((sel) => Boolean(document.activeElement?.closest(sel)), selector)) return true;
+  }
+  return false;
+}
+
+/** Form controls and buttons on the page with no accessible name (label, aria-label, aria-labelledby, title or text). */
+async function unlabelledControls(page: Page): Promise<string[]> {
+  return page.evaluate(() => {
+    const named = (el: Element) => {
+      const id = el.getAttribute("id");
+      return (
+        Boolean(el.getAttribute("aria-label")?.trim() || el.getAttribute("aria-labelledby") || el.getAttribute("title")?.trim()) ||
+        Boolean(id && document.querySelector(`label[for="${CSS.escape(id)}"]`)) ||
+        Boolean(el.closest("label")) ||
+        (el.tagName === "BUTTON" && Boolean(el.textContent?.trim()))
+      );
+    };
+    return [...document.querySelectorAll("input:not([type=hidden]), select, textarea, button")].filter((el) => !named(el)).map((el) => el.outerHTML.slice(0, 120));
+  });
+}
+
 async function certify(page: Page) {
   await page.getByRole("button", { name: "Certify maps and chain" }).click();
   await page.locator("[data-certify-outcome]").waitFor({ timeout: 120_000 });
@@ -72,6 +97,23 @@ describe("the workbench", () => {
     await page.getByRole("button", { name: "Parity" }).click();
     await page.fill("#chain-name", "Rule 105 to 150 by parity, twice");
     await shot(page, "1-proposed");
+    expect(await unlabelledControls(page)).toEqual([]);
+
+    // Keyboard: Tab from the toolbar reaches a node and a map of the canvas; Enter opens each one's inspector.
+    const inspector = page.locator("[data-inspector]");
+    await page.getByRole("button", { name: "Fit to view" }).focus();
+    expect(await tabUntil(page, ".react-flow__node")).toBe(true);
+    const nodeName = await page.evaluate(() => document.activeElement?.getAttribute("aria-label"));
+    expect(nodeName).toMatch(/^Model /);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => page.evaluate(() => document.activeElement?.hasAttribute("data-inspector"))).toBe(true);
+    await expect(inspector.locator("h3").textContent()).resolves.toBe(nodeName!.replace(/^Model /, ""));
+    await page.getByRole("button", { name: "Fit to view" }).focus();
+    expect(await tabUntil(page, ".react-flow__edge")).toBe(true);
+    await page.keyboard.press("Enter");
+    await expect.poll(() => inspector.locator("h3").textContent()).toMatch(/^Map /);
+    await expect(inspector.locator("[data-edge-state]").getAttribute("data-edge-state")).resolves.toBe("proposed");
+
     await certify(page);
     await page.locator("[data-chain-link]").waitFor({ timeout: 60_000 });
     await expect(page.locator('[data-edge-label="certified"]').count()).resolves.toBe(2);
@@ -99,6 +141,12 @@ describe("the workbench", () => {
     await page.goto(`${server.url}/chains?q=parity`);
     await expect(page.getByRole("link", { name: "Rule 105 to 150 by parity, twice" }).count()).resolves.toBe(1);
     await shot(page, "1-chains-list");
+    // …and among the atlas's maps, marked composite and linked to its chain.
+    await page.goto(`${server.url}/atlas?view=maps`);
+    const listed = page.locator("[data-composite-edges] li", { hasText: "Rule 105 to 150 by parity, twice" });
+    await expect(listed.textContent()).resolves.toContain("composite");
+    await expect(listed.getByRole("link", { name: "Rule 105 to 150 by parity, twice" }).getAttribute("href")).resolves.toBe(`/chains/${chain.id}`);
+    await shot(page, "1-atlas-maps");
     await page.context().close();
   }, 240_000);
 
@@ -137,6 +185,10 @@ describe("the workbench", () => {
     await page.getByLabel("Name (optional)").fill("Four-state test chain");
     await page.getByRole("button", { name: "Add to canvas" }).click();
     await mapToNewNode(page, "Lumping");
+    // Dragging a state's chip onto a block column moves it there; the block-number field follows.
+    await page.locator('[data-state-chip="D"]').dragTo(page.locator('[data-block-column="1"]'));
+    await expect.poll(() => page.getByLabel("Block of state D").inputValue()).toBe("1");
+    await shot(page, "3-dragged");
     await page.getByRole("button", { name: "Suggest coarsest lumping" }).click();
     await expect.poll(() => page.getByLabel("Block of state C").inputValue(), { timeout: 90_000 }).toBe("2");
     const blocks = await Promise.all(["A", "B", "C", "D"].map((s) => page.getByLabel(`Block of state ${s}`).inputValue()));
@@ -159,9 +211,10 @@ describe("the workbench", () => {
     // Q = [[1/2,1/2,0],[1/4,1/2,1/4],[0,1/2,1/2]] squared by hand.
     expect(body.target.matrix).toEqual([["3/8", "1/2", "1/8"], ["1/4", "1/2", "1/4"], ["1/8", "1/2", "3/8"]]);
 
-    // The lumped chain Q and its decimation Q² are both named "Markov chain (3 states)": Ask says so and lets the person choose.
-    await page.goto(`${server.url}/atlas/ask?from=Four-state%20test%20chain&to=Markov%20chain%20(3%20states)`);
-    const choices = page.getByRole("list", { name: "Models matching Markov chain (3 states)" }).getByRole("link");
+    // The lumped chain Q ("Markov chain (3 states)") and its decimation Q² ("Markov chain (3 states), 2-step decimation")
+    // both match "Markov chain (3": Ask says so and lets the person choose, never picking one.
+    await page.goto(`${server.url}/atlas/ask?from=Four-state%20test%20chain&to=Markov%20chain%20(3`);
+    const choices = page.getByRole("list", { name: "Models matching Markov chain (3" }).getByRole("link");
     await expect(choices.count()).resolves.toBe(2);
     await expect(page.locator("[data-answer]").count()).resolves.toBe(0);
     await choices.first().click();
@@ -186,6 +239,8 @@ describe("the workbench", () => {
     const viewer = await signedIn("viewer");
     await viewer.goto(`${server.url}/chains/drafts/${draftId}`);
     await viewer.locator('[data-save-state="read-only"]').waitFor();
+    // React Flow draws the nodes once it has measured the canvas.
+    await viewer.locator('[data-node-name="ECA 146"]').waitFor();
     await expect(viewer.locator('[data-node-name="ECA 146"]').count()).resolves.toBe(1);
     await expect(viewer.getByRole("button", { name: "Certify maps and chain" }).count()).resolves.toBe(0);
     await expect(viewer.getByRole("button", { name: "Add to canvas" }).count()).resolves.toBe(0);
@@ -240,8 +295,11 @@ describe("the workbench", () => {
     const page = await signedIn("contributor", 390);
     await page.goto(`${server.url}/chains/workbench`);
     await addEca(page, 90);
+    await page.locator('[data-node-name="ECA 90"]').waitFor();
     await shot(page, "5-narrow");
     await expect(page.locator('[data-node-name="ECA 90"]').count()).resolves.toBe(1);
+    // Nothing widens the page past the phone's 390 px (long model names in the lists are cut, not spread).
+    await expect(page.evaluate(() => document.documentElement.scrollWidth)).resolves.toBeLessThanOrEqual(390);
     await page.goto(`${server.url}/chains`);
     await expect(page.getByRole("link", { name: "Open the workbench" }).isVisible()).resolves.toBe(true);
     await shot(page, "5-narrow-chains");

@@ -4,7 +4,7 @@ import * as draftById from "@/app/api/drafts/[id]/route";
 import * as duplicate from "@/app/api/drafts/[id]/duplicate/route";
 import * as draftsRoute from "@/app/api/drafts/route";
 import { setDatabase } from "@/db/queries/atlas";
-import { listCompositeEdges, searchChains } from "@/db/queries/chain-list";
+import { listCompositeEdges, listWorkspaceComposites, searchChains } from "@/db/queries/chain-list";
 import { drafts } from "@/db/schema";
 import { closeVerificationPool } from "@/server/atlas/pool";
 import { submitBuild, submitChain } from "@/server/atlas/submit";
@@ -114,5 +114,13 @@ describe("chain list queries", () => {
 
     const composites = await listCompositeEdges({ workspaceId: ws, modelId: source.target.id });
     expect(composites.map((c) => [c.name, c.compositeKind, c.compositeBlock])).toEqual([["Parity twice", "projection", 4]]);
+
+    // The atlas's maps list: the composite under the list's filters (kind, block, a part of a name).
+    const listed = (filters: { kind?: string; block?: number; q?: string }) => listWorkspaceComposites({ workspaceId: ws, ...filters }).then((es) => es.map((e) => e.name));
+    expect(await listed({})).toEqual(["Parity twice"]);
+    expect(await listed({ kind: "projection", block: 4, q: "eca 150" })).toEqual(["Parity twice"]);
+    expect(await listed({ block: 2 })).toEqual([]);
+    expect(await listed({ kind: "lumping" })).toEqual([]);
+    expect(await listed({ q: "rule 30" })).toEqual([]);
   });
 });

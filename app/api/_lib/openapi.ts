@@ -6,6 +6,7 @@ import { routes as certificateByAddress } from "../certificates/[address]/schema
 import { routes as certificates } from "../certificates/schema";
 import { routes as certificateSchema } from "../certificates/schema/schema";
 import { routes as chains } from "../chains/schema";
+import { routes as certifyWorkbench } from "../chains/workbench/schema";
 import { routes as drafts } from "../drafts/schema";
 import { jobRoutes } from "../jobs/schema";
 import { routes as retract } from "../maps/[id]/retract/schema";
@@ -41,6 +42,7 @@ const ALL_ROUTES: RouteConfig[] = [
   ...retract,
   ...symmetry,
   ...chains,
+  ...certifyWorkbench,
   ...paths,
   ...ask,
   ...search,

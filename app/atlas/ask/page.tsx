@@ -8,6 +8,7 @@ import { MapKindBadge } from "@/components/atlas/map-badges";
 import { PageHeader } from "@/components/atlas/page-header";
 import { targetInScope } from "@/components/atlas/searchScope";
 import { Skeleton } from "@/components/atlas/skeleton";
+import { distinctNames } from "@/components/ui/distinctNames";
 import { Panel } from "@/components/ui/panel";
 import { findPaths, getMap, listSearchRecords, MAX_PATH_DEPTH, type MapView } from "@/db/queries/atlas";
 import { findModelByText, type ModelLookup } from "@/db/queries/views";
@@ -32,10 +33,10 @@ function LookupProblem({ id, lookup, text, hrefFor }: { id: string; lookup: Mode
         <>
           <p>“{text}” matches several models; choose one:</p>
           <ul className="mt-1 flex flex-wrap gap-2" aria-label={`Models matching ${text}`}>
-            {lookup.choices.map((m) => (
+            {distinctNames(lookup.choices).map((m) => (
               <li key={m.id}>
-                <Link href={hrefFor(m.id)} className="rounded-md px-2 py-0.5 text-tide-800 ring-1 ring-line-strong hover:bg-tide-50">
-                  {m.name} <span className="font-mono text-xs text-ink-faint">{m.kind}</span>
+                <Link href={hrefFor(m.id)} className="rounded-md px-2 py-0.5 text-tide-800 ring-1 ring-line-strong hover:bg-tide-50" title={m.description || undefined}>
+                  {m.label} {m.label === m.name ? <span className="font-mono text-xs text-ink-faint">{m.kind}</span> : null}
                 </Link>
               </li>
             ))}
@@ -118,7 +119,7 @@ async function Answer({ workspaceId, a, b, depth }: { workspaceId: string; a: Mo
             </p>
             <ChainList links={links} />
             {links.length > 1 ? (
-              <Link href={`/chains/new?maps=${answer.mapIds.join(",")}`} className="inline-block rounded-md bg-tide-700 px-3 py-1.5 text-sm font-semibold text-paper-raised hover:bg-tide-800">
+              <Link href={`/chains/workbench?maps=${answer.mapIds.join(",")}`} className="inline-block rounded-md bg-tide-700 px-3 py-1.5 text-sm font-semibold text-paper-raised hover:bg-tide-800">
                 Compose and certify this chain
               </Link>
             ) : null}

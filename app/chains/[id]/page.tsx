@@ -71,7 +71,7 @@ export default async function ChainPage({ params }: Props) {
       <PageHeader
         eyebrow={
           <span>
-            Chain of {chain.links.length} maps · <Link href="/chains/new" className="underline-offset-2 hover:underline">new chain</Link>
+            Chain of {chain.links.length} maps · <Link href={`/chains/workbench?maps=${chain.links.map((l) => l.id).join(",")}`} className="underline-offset-2 hover:underline">open on the workbench</Link>
           </span>
         }
         title={chain.name}

@@ -4,6 +4,7 @@ import { compute as lumpChain } from "./lump-chain.compute";
 import { compute as searchProjection } from "./search-projection.compute";
 import { compute as totalisticAtlas } from "./totalistic-atlas.compute";
 import { compute as verifyChain } from "./verify-chain.compute";
+import { compute as verifyMap } from "./verify-map.compute";
 import type { ComputeContext } from "./types";
 
 export type ComputeFunction = (params: never, context: ComputeContext) => unknown;
@@ -19,6 +20,7 @@ export const COMPUTES = {
   "search-projection": searchProjection,
   "totalistic-atlas": totalisticAtlas,
   "verify-chain": verifyChain,
+  "verify-map": verifyMap,
 } satisfies Record<string, ComputeFunction>;
 
 export type ComputeKey = keyof typeof COMPUTES;

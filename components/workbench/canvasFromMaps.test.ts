@@ -1,0 +1,40 @@
+import { describe, expect, it } from "vitest";
+import { canvasFromMaps, type AtlasMapView } from "./canvasFromMaps";
+
+const eca = (rule: number) => ({ id: `m${rule}`, name: `ECA ${rule}`, model: { kind: "eca" as const, rule } });
+const map = (id: string, from: number, to: number, kind = "projection", block: number | null = 2, steps: number | null = 2): AtlasMapView => ({
+  id,
+  kind,
+  block,
+  steps,
+  certificateAddress: `sha256:${id}`,
+  source: eca(from),
+  target: eca(to),
+});
+
+describe("canvasFromMaps", () => {
+  it("continues a path from the node the last map ended at, with a node of its own for a map from a model to itself", () => {
+    const w = canvasFromMaps([map("a", 146, 128, "projection", 3, 3), map("b", 128, 128)], { width: 190, height: 94 });
+    expect(w.nodes.map((n) => [n.id, n.name, n.modelId])).toEqual([
+      ["n1", "ECA 146", "m146"],
+      ["n2", "ECA 128", "m128"],
+      ["n3", "ECA 128", "m128"],
+    ]);
+    expect(w.edges).toEqual([
+      { id: "e1", source: "n1", target: "n2", spec: null, state: "certified", mapId: "a", certificateAddress: "sha256:a", problem: null },
+      { id: "e2", source: "n2", target: "n3", spec: null, state: "certified", mapId: "b", certificateAddress: "sha256:b", problem: null },
+    ]);
+  });
+
+  it("keeps two maps that do not meet as two separate paths, and shows a decimation's steps", () => {
+    const w = canvasFromMaps([map("a", 146, 128), map("b", 90, 60, "iterate", null, 2)], { width: 190, height: 94 });
+    expect(w.nodes.map((n) => n.name)).toEqual(["ECA 146", "ECA 128", "ECA 90", "ECA 60"]);
+    expect(w.edges.map((e) => [e.source, e.target, e.spec])).toEqual([
+      ["n1", "n2", null],
+      ["n3", "n4", { kind: "iterate", steps: 2 }],
+    ]);
+    // Laid out: the target of a map sits below its source.
+    const y = Object.fromEntries(w.nodes.map((n) => [n.name, n.y]));
+    expect(y["ECA 128"]).toBeGreaterThan(y["ECA 146"]);
+  });
+});

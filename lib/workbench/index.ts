@@ -1,0 +1,2 @@
+export { buildRequest } from "./buildRequest";
+export type { MapSpec } from "./mapSpec";
