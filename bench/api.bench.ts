@@ -14,8 +14,8 @@
 import { spawn, type ChildProcess } from "node:child_process";
 import { createHash, randomBytes } from "node:crypto";
 import { get as httpGet } from "node:http";
-import { existsSync, mkdtempSync, readdirSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { existsSync, mkdtempSync, readdirSync, readFileSync, rmSync } from "node:fs";
+import { cpus, loadavg, tmpdir } from "node:os";
 import { join } from "node:path";
 import autocannon from "autocannon";
 import { encode } from "next-auth/jwt";
@@ -163,9 +163,24 @@ function percentile(sorted: number[], p: number): number {
   return sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))] ?? NaN;
 }
 
-type Load = { rps: number; p50: number; p95: number; p99: number; errors: number; total: number; detail: string };
+type Load = { rps: number; p50: number; p95: number; p99: number; errors: number; total: number; detail: string; cpuPerRequest: number };
 
-async function hammer(port: number, seconds: number, path: () => string, headers: Record<string, string> = {}): Promise<Load> {
+/**
+ * CPU time (user + system) the server process has used, in ms, from /proc/<pid>/stat (fields 14 and
+ * 15, in clock ticks of USER_HZ = 100 on Linux, proc(5)). Unlike latency it hardly moves when other
+ * processes share the cores, so its ratio to the baseline is the steadier figure on a busy machine.
+ */
+function serverCpuMs(pid: number): number {
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, "utf8");
+    const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+    return ((Number(fields[11]) + Number(fields[12])) * 1000) / 100;
+  } catch {
+    return NaN;
+  }
+}
+
+async function hammer(port: number, seconds: number, path: () => string, headers: Record<string, string> = {}, pid = 0): Promise<Load> {
   const latencies: number[] = [];
   let non2xx = 0;
   const statuses = new Map<number, number>();
@@ -181,7 +196,9 @@ async function hammer(port: number, seconds: number, path: () => string, headers
     if (status < 200 || status >= 300) non2xx++;
     statuses.set(status, (statuses.get(status) ?? 0) + 1);
   });
+  const cpuBefore = serverCpuMs(pid);
   const result = await instance;
+  const cpuMs = serverCpuMs(pid) - cpuBefore;
   const sorted = latencies.sort((a, b) => a - b);
   return {
     rps: result.requests.average,
@@ -191,6 +208,7 @@ async function hammer(port: number, seconds: number, path: () => string, headers
     // autocannon counts timeouts among its errors.
     errors: result.errors + non2xx,
     total: latencies.length,
+    cpuPerRequest: cpuMs / Math.max(1, latencies.length),
     detail: `${result.timeouts} timeouts, statuses ${JSON.stringify(Object.fromEntries(statuses))}`,
   };
 }
@@ -223,13 +241,15 @@ async function startServer(url: string, secret: string, profileDir: string | nul
     if (server.exitCode === null && server.pid) process.kill(-server.pid, "SIGINT");
     await Promise.race([exited, new Promise((r) => setTimeout(r, 60_000))]);
   };
-  return { port, stop };
+  return { port, pid: server.pid ?? 0, stop };
 }
 
 function line(name: string, r: Load, base: Load | null): string {
-  const ratio = base ? ` (${(r.rps / base.rps).toFixed(2)}× baseline req/s, p95 ${(r.p95 / base.p95).toFixed(1)}× baseline)` : "";
+  const ratio = base
+    ? ` (${(r.rps / base.rps).toFixed(2)}× baseline req/s, p95 ${(r.p95 / base.p95).toFixed(1)}× baseline, server CPU ${(r.cpuPerRequest / base.cpuPerRequest).toFixed(1)}× baseline per request)`
+    : "";
   const target = base ? `; target p95 < 50 ms: ${r.p95 < 50 ? "met" : "MISSED"}, errors 0: ${r.errors === 0 ? "met" : "MISSED"}` : "";
-  return `${name}: ${r.rps.toFixed(0)} req/s, p50 ${r.p50.toFixed(1)} ms, p95 ${r.p95.toFixed(1)} ms, p99 ${r.p99.toFixed(1)} ms, errors ${r.errors} of ${r.total}${ratio}${target} [${r.detail}]`;
+  return `${name}: ${r.rps.toFixed(0)} req/s, p50 ${r.p50.toFixed(1)} ms, p95 ${r.p95.toFixed(1)} ms, p99 ${r.p99.toFixed(1)} ms, errors ${r.errors} of ${r.total}, server CPU ${r.cpuPerRequest.toFixed(2)} ms/request${ratio}${target} [${r.detail}]`;
 }
 
 export async function main(args: string[]): Promise<void> {
@@ -260,9 +280,10 @@ export async function main(args: string[]): Promise<void> {
     await hammer(server.port, 3, mix, token);
     await hammer(server.port, 3, mix, cookie);
     if (profile) console.log(`each endpoint alone (one connection, token):\n${await timeEachEndpoint(server.port, modelIds, token)}`);
-    const base = await hammer(server.port, seconds, () => "/api/health");
-    const viaToken = await hammer(server.port, seconds, mix, token);
-    const viaSession = await hammer(server.port, seconds, mix, cookie);
+    const base = await hammer(server.port, seconds, () => "/api/health", {}, server.pid);
+    const viaToken = await hammer(server.port, seconds, mix, token, server.pid);
+    const viaSession = await hammer(server.port, seconds, mix, cookie, server.pid);
+    console.log(`load average ${loadavg().map((l) => l.toFixed(2)).join(" ")} on ${cpus().length} cores (other processes share them)`);
     console.log(`next start, demo database + ${EDGES} maps; autocannon ${CONNECTIONS} connections, ${seconds} s each; mix of 11 read endpoints`);
     console.log(line("baseline GET /api/health (constant JSON, same server)", base, null));
     console.log(line("API reads with a token", viaToken, base));

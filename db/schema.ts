@@ -107,6 +107,8 @@ export const models = sqliteTable(
     index("models_workspace_rule_idx").on(t.workspaceId, t.rule),
     // Model lists and searches page by (name, id): walked in order instead of sorting the workspace.
     index("models_workspace_name_idx").on(t.workspaceId, t.name, t.id),
+    // models_workspace_order_idx, in modelOrder's own expressions, is made by drizzle/0007_read-versions-triggers.sql:
+    // drizzle-kit splits an expression index at its commas.
   ],
 );
 export type Model = InferSelectModel<typeof models>;
@@ -471,3 +473,15 @@ export const drafts = sqliteTable(
   (t) => [index("drafts_workspace_owner_idx").on(t.workspaceId, t.ownerId, t.updatedAt)],
 );
 export type Draft = InferSelectModel<typeof drafts>;
+
+/**
+ * Version counters that the in-process read caches check (server/read-cache): `user:<id>` moves when
+ * a person's row, memberships or tokens change, `ws:<id>` when a workspace's row changes, and
+ * `atlas:<id>` when its models, maps or chains change. Database triggers (drizzle/0007_read-versions-triggers.sql)
+ * bump them inside the writing transaction, so every process sees a write at its next read.
+ */
+export const readVersions = sqliteTable("read_versions", {
+  scope: text("scope").primaryKey(),
+  version: integer("version").notNull().default(0),
+});
+export type ReadVersion = InferSelectModel<typeof readVersions>;

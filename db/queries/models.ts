@@ -87,14 +87,27 @@ export async function getModel({
   idOrAddress: string;
 }): Promise<Model | null> {
   return withDb("reading a model", async () => {
-    const column = idOrAddress.startsWith("sha256:") ? models.address : models.id;
-    const row = await db
-      .select()
-      .from(models)
-      .where(and(eq(models.workspaceId, workspaceId), eq(column, idOrAddress)))
-      .get();
+    const byAddress = idOrAddress.startsWith("sha256:");
+    const row = await modelLookups(db)[byAddress ? "address" : "id"].get({ workspaceId, key: idOrAddress });
     return row ?? null;
   });
+}
+
+// Read on every model page and API call, and twice per path search: prepared once per database.
+const modelLookupsByDb = new WeakMap<object, Record<"id" | "address", ReturnType<typeof prepareModelLookup>>>();
+
+function prepareModelLookup(db: Executor, by: "id" | "address") {
+  return db
+    .select()
+    .from(models)
+    .where(and(eq(models.workspaceId, sql.placeholder("workspaceId")), eq(models[by], sql.placeholder("key"))))
+    .prepare();
+}
+
+function modelLookups(db: Executor) {
+  let prepared = modelLookupsByDb.get(db);
+  if (!prepared) modelLookupsByDb.set(db, (prepared = { id: prepareModelLookup(db, "id"), address: prepareModelLookup(db, "address") }));
+  return prepared;
 }
 
 /**

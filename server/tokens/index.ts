@@ -3,7 +3,6 @@ import { getMembershipRole } from "@/db/queries/memberships";
 import { createApiToken, listApiTokens, revokeApiToken, type ApiTokenView } from "@/db/queries/tokens";
 import { can, isRoleWithin, refusalReason, type Role } from "@/lib/policy";
 import { AppError } from "@/server/errors";
-import { forgetTokens } from "./cache";
 import { generateTokenSecret, hashTokenSecret, tokenDisplayPrefix } from "./secret";
 
 export { generateTokenSecret, hashTokenSecret, TOKEN_PREFIX } from "./secret";
@@ -44,9 +43,8 @@ export async function createPersonalToken({
 }
 
 export async function revokePersonalToken({ userId, tokenId }: { userId: string; tokenId: string }): Promise<ApiTokenView> {
-  const revoked = await revokeApiToken({ userId, tokenId });
-  forgetTokens();
-  return revoked;
+  // read_versions triggers tell every process's actor cache (app/api/_lib/actor.ts) at once.
+  return revokeApiToken({ userId, tokenId });
 }
 
 export async function listPersonalTokens({ userId, workspaceId }: { userId: string; workspaceId?: string }) {

@@ -4,6 +4,7 @@ import { describeModel, type Model as CanonicalModel } from "@/lib/models";
 import type { Model } from "@/db/schema";
 import { ensureModel } from "@/server/atlas/submit";
 import { authorize, resolveActor } from "../_lib/actor";
+import { cachedJson } from "../_lib/cached-read";
 import { parseBody, parseQuery, route } from "../_lib/handler";
 import { modelJson } from "../_lib/schemas";
 import { CreateBody, ListQuery } from "./schema";
@@ -12,8 +13,10 @@ export const GET = route(async (request) => {
   const { kind, ...query } = parseQuery(request, ListQuery);
   const actor = await resolveActor(request);
   authorize(actor, "atlas:read");
-  const page = await searchAtlas({ workspaceId: actor.workspace.id, target: "models", modelKind: kind, ...query });
-  return Response.json({ items: (page.items as Model[]).map(modelJson), nextCursor: page.nextCursor });
+  return cachedJson(request, actor, async () => {
+    const page = await searchAtlas({ workspaceId: actor.workspace.id, target: "models", modelKind: kind, ...query });
+    return { items: (page.items as Model[]).map(modelJson), nextCursor: page.nextCursor };
+  });
 });
 
 export const POST = route(async (request) => {

@@ -1,6 +1,7 @@
 import { getMap } from "@/db/queries/atlas";
 import { AppError } from "@/server/errors";
 import { authorize, resolveActor } from "../../_lib/actor";
+import { cachedJson } from "../../_lib/cached-read";
 import { parseParams, route } from "../../_lib/handler";
 import { mapJson } from "../../_lib/schemas";
 import { Params } from "./schema";
@@ -9,7 +10,9 @@ export const GET = route<{ id: string }>(async (request, { params }) => {
   const { id } = await parseParams(params, Params);
   const actor = await resolveActor(request);
   authorize(actor, "atlas:read");
-  const map = await getMap({ workspaceId: actor.workspace.id, mapId: id });
-  if (!map) throw new AppError("not_found", `No map ${id} in this workspace.`, { field: "id" });
-  return Response.json(mapJson(map));
+  return cachedJson(request, actor, async () => {
+    const map = await getMap({ workspaceId: actor.workspace.id, mapId: id });
+    if (!map) throw new AppError("not_found", `No map ${id} in this workspace.`, { field: "id" });
+    return mapJson(map);
+  });
 });

@@ -1,0 +1,2 @@
+export { StampedCache, stampOf } from "./stamped-cache";
+export { sessionUserId, forgetDecodedSessions } from "./session";
