@@ -23,3 +23,4 @@ export { buildTotalisticAtlas, totalisticTable, TOTALISTIC_CODES } from "./total
 export type { TotalisticAtlas, TotalisticAtlasOptions, TotalisticAtlasRow } from "./totalisticAtlas";
 export { permutationMixture } from "./markov/permutationMixture";
 export type { PermutationMixtureSpec } from "./markov/permutationMixture";
+export { searchAllCongruences, MAX_LISTED_CONGRUENCE_STATES } from "./searchAllCongruences";
