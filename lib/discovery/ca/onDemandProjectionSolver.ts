@@ -15,8 +15,6 @@ import type { WideProjectionClass } from "./wideProjectionSolver";
 /** Widest window (in cells) and light cone (in cells) the on-demand search handles; beyond them the table solver is used. */
 export const MAX_ON_DEMAND_WINDOW_CELLS = 30;
 export const MAX_ON_DEMAND_CONE_CELLS = 24;
-/** Window images are remembered up to this many cells (one byte per window). */
-const MAX_MEMO_WINDOW_CELLS = 24;
 /** Block states are tracked in 32-bit masks. */
 const MAX_ON_DEMAND_STATES = 32;
 
@@ -97,8 +95,6 @@ class OnDemandSearch {
   private readonly coneShift: Int32Array;
   private readonly coneMask: number;
   private current = 0;
-  /** window images found so far (−1: not yet), when the window count is small enough to keep them */
-  private readonly imageMemo: Int8Array | null;
 
   constructor(
     t: RuleTable,
@@ -120,16 +116,10 @@ class OnDemandSearch {
     // output cell j of the centre block is window cell RN + j; its cone ends rT cells to its right
     this.coneShift = Int32Array.from({ length: block }, (_, j) => cells - 1 - (R * block + j + t.r * steps));
     this.coneMask = 2 ** (2 * t.r * steps + 1) - 1;
-    this.imageMemo = cells <= MAX_MEMO_WINDOW_CELLS ? new Int8Array(2 ** cells).fill(-1) : null;
   }
 
   /** The centre block after T steps of window w (blocks as N-bit digits, leftmost most significant). */
   image(w: number): number {
-    const { imageMemo } = this;
-    if (imageMemo) {
-      const known = imageMemo[w];
-      if (known >= 0) return known;
-    }
     const { cone, coneShift, coneMask } = this;
     const top = cone.top;
     let v = 0;
@@ -138,7 +128,6 @@ class OnDemandSearch {
       const cell = top[pattern];
       v = (v << 1) | (cell >= 0 ? cell : cone.fill(pattern));
     }
-    if (imageMemo) imageMemo[w] = v;
     return v;
   }
 
@@ -225,25 +214,29 @@ class OnDemandSearch {
     const n = this.n;
     const mask = n - 1;
     const windows = 2 ** (width * block);
+    const first = coneShift[0];
     for (let high = 0; high < windows; high += n) {
       let prefix = 0;
       for (let shift = (width - 1) * block; shift >= block; shift -= block) prefix = (prefix << 1) | p[(high >>> shift) & mask];
       prefix <<= 1;
       for (let x = 0; x < n; x++) {
-        const c = prefix | p[x];
         const w = high | x;
-        let d = 0;
-        for (let j = 0; j < block; j++) {
-          const pattern = (w >>> coneShift[j]) & coneMask;
-          const cell = top[pattern];
+        let pattern = (w >>> first) & coneMask;
+        let cell = top[pattern];
+        let d = cell >= 0 ? cell : cone.fill(pattern);
+        for (let j = 1; j < block; j++) {
+          pattern = (w >>> coneShift[j]) & coneMask;
+          cell = top[pattern];
           d = (d << 1) | (cell >= 0 ? cell : cone.fill(pattern));
         }
         const value = p[d];
+        const c = prefix | p[x];
         const gc = g[c];
-        if (gc < 0) {
+        if (gc !== value) {
+          if (gc >= 0) return false;
           g[c] = value;
           trail.push(G_SET, c);
-        } else if (gc !== value) return false;
+        }
       }
     }
     return true;

@@ -27,8 +27,8 @@ export type TotalisticAtlasOutput = {
 };
 
 /**
- * A code/block with at most this many proper congruences has a certificate (an atlas map) for each; above it, for
- * the maximal ones. Some codes have all 21,145 proper partitions of the nine block states as congruences (their
+ * A code/block with at most this many proper congruences has a certificate (an atlas map) for each; above it, as
+ * many of the maximal ones, fewest classes first. Some codes have all 21,145 proper partitions of the nine block states as congruences (their
  * block-2 supercell is constant), over a million across the atlas: every one is checked by the core's checker and
  * listed in the code's search record, but a map for each would swamp the atlas.
  */
@@ -52,6 +52,7 @@ export function compute(params: TotalisticAtlasParams, context: ComputeContext):
     const listed = { block: row.block, partitions: [] as string[], maximal: [] as string[] };
     proper.set(row.code, [...(proper.get(row.code) ?? []), listed]);
     const mapAll = row.congruences.length <= MAPS_PER_BLOCK;
+    let mapped = 0;
     const supercell = supercellTable(table, row.block);
     for (const c of row.congruences) {
       const what = `code ${row.code}: ${c.classes} classes at block ${row.block}`;
@@ -63,7 +64,8 @@ export function compute(params: TotalisticAtlasParams, context: ComputeContext):
       }
       listed.partitions.push(c.partition.join(""));
       if (c.maximal) listed.maximal.push(c.partition.join(""));
-      if (!mapAll && !c.maximal) continue;
+      if ((!mapAll && !c.maximal) || mapped >= MAPS_PER_BLOCK) continue;
+      mapped++;
       const built = certifyProjection({ table, block: row.block, projection: c.partition });
       if (!built.ok) {
         out.skipped.push(`${what}: the checker found a counterexample`);
