@@ -6,6 +6,20 @@
  * exactly here.
  */
 import { closurePartition, congruenceClosure, findRoot, type Closure } from "./congruence";
+
+/** The closure's classes as a string key: state s's class, numbered by first appearance, one character each. */
+function canonicalKey(closure: Closure): string {
+  const n = closure.parent.length;
+  const label = new Int32Array(n).fill(-1);
+  let key = "";
+  let next = 0;
+  for (let s = 0; s < n; s++) {
+    const r = findRoot(closure.parent, s);
+    if (label[r] < 0) label[r] = next++;
+    key += String.fromCharCode(48 + label[r]);
+  }
+  return key;
+}
 import type { PrincipalScan } from "./principalCongruences";
 import type { Supercell } from "./supercell";
 
@@ -19,24 +33,28 @@ export function allProperCongruences(cell: Supercell, scan: PrincipalScan, shoul
   const { n } = cell;
   const found = new Map<string, LatticeMember>();
   const queue: Closure[] = [];
-  for (const [key, entry] of scan.found) {
-    found.set(key, { partition: entry.partition, maximal: true });
+  for (const entry of scan.found.values()) {
+    found.set(canonicalKey(entry.closure), { partition: entry.partition, maximal: true });
     queue.push(entry.closure);
   }
+  const roots: number[] = [];
   for (let next = 0; next < queue.length; next++) {
     if (shouldStop()) return null;
     const closure = queue[next];
-    const member = found.get(closurePartition(closure).join(",")) as LatticeMember;
-    for (let x = 0; x < n; x++)
-      for (let y = x + 1; y < n; y++) {
-        if (scan.knownTotal[x * n + y] || findRoot(closure.parent, x) === findRoot(closure.parent, y)) continue;
+    const member = found.get(canonicalKey(closure)) as LatticeMember;
+    roots.length = 0;
+    for (let s = 0; s < n; s++) if (closure.parent[s] === s) roots.push(s);
+    // joining any pair of two classes gives the same congruence: one pair per two classes
+    for (let a = 0; a < roots.length; a++)
+      for (let b = a + 1; b < roots.length; b++) {
+        const [x, y] = [roots[a], roots[b]];
+        if (scan.knownTotal[x * n + y]) continue;
         const joined = congruenceClosure(cell, closure, [[x, y]], { knownTotal: scan.knownTotal });
         if (!joined) continue;
         member.maximal = false;
-        const partition = closurePartition(joined);
-        const key = partition.join(",");
+        const key = canonicalKey(joined);
         if (found.has(key)) continue;
-        found.set(key, { partition, maximal: true });
+        found.set(key, { partition: closurePartition(joined), maximal: true });
         queue.push(joined);
       }
   }
