@@ -10,13 +10,13 @@
  * far, instead of the whole table; a complete assignment meets every window exactly once on its path.
  */
 import type { RuleTable } from "@/lib/ca";
-import type { WideProjectionClass } from "./wideProjectionSolver";
+import { MAX_WIDE_STATES, type WideProjectionClass } from "./wideProjectionSolver";
 
 /** Widest window (in cells) and light cone (in cells) the on-demand search handles; beyond them the table solver is used. */
 export const MAX_ON_DEMAND_WINDOW_CELLS = 30;
 export const MAX_ON_DEMAND_CONE_CELLS = 24;
-/** Block states are tracked in 32-bit masks. */
-const MAX_ON_DEMAND_STATES = 32;
+/** It lists solutions one by one, like the table solver, so it takes as many block states as that one. */
+const MAX_ON_DEMAND_STATES = MAX_WIDE_STATES;
 
 /** Whether the on-demand search handles the binary rule `t` at block N with T steps. */
 export function onDemandApplies(t: RuleTable, block: number, steps: number): boolean {
