@@ -4,67 +4,13 @@
  *  2. 1,000,000 states / 10,000,000 transitions: the command users run (`lump FILE --exact --json` on a Matrix
  *     Market file), wall time and peak memory of that process, against ordinary lumping of the same file in the
  *     same run.
- * The large chain is a mixture of ten permutations (weights k/55): state (b, m) moves to (b + c_k mod 1000, σ_{k,b}(m)).
- * The weights rotate with b, so column totals differ from group to group; the groups are exactly lumpable (each
- * permutation reaches every state of a group exactly once from one source group).
+ * The chains are permutation mixtures (lib/discovery/markov/permutationMixture.ts), 1000 groups.
  */
 import { execFileSync } from "node:child_process";
 import { closeSync, mkdtempSync, openSync, rmSync, writeSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { coarsestLumping, type SparseChain } from "@/lib/discovery";
-import { rational, type Rational } from "@/lib/rational";
-
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
-const SHIFTS = [1, 2, 3, 5, 8, 13, 21, 34, 55, 89];
-
-/** Entries of the permutation mixture: for each state, ten (column, weight k/55) pairs, columns ascending. */
-export function permutationMixture(groups: number, members: number, seed: number): SparseChain {
-  const random = seeded(seed);
-  const n = groups * members;
-  const per = SHIFTS.length;
-  const rowStart = Int32Array.from({ length: n + 1 }, (_, i) => i * per);
-  const col = new Int32Array(n * per);
-  const weights: Rational[] = SHIFTS.map((_, k) => rational(k + 1, 55));
-  const value = new Array<Rational>(n * per);
-  const sigma = new Int32Array(members);
-  for (let k = 0; k < per; k++) {
-    for (let b = 0; b < groups; b++) {
-      for (let m = 0; m < members; m++) sigma[m] = m;
-      for (let m = members - 1; m > 0; m--) {
-        const r = Math.floor(random() * (m + 1));
-        [sigma[m], sigma[r]] = [sigma[r], sigma[m]];
-      }
-      const to = ((b + SHIFTS[k]) % groups) * members;
-      for (let m = 0; m < members; m++) {
-        const e = (b * members + m) * per + k;
-        col[e] = to + sigma[m];
-        // the weights rotate with the source group, so column totals differ between groups (not doubly stochastic)
-        value[e] = weights[(k + b) % per];
-      }
-    }
-  }
-  // columns ascending within each row, as the sparse format has them
-  for (let i = 0; i < n; i++) {
-    const order = Array.from({ length: per }, (_, k) => i * per + k).sort((x, y) => col[x] - col[y]);
-    const cs = order.map((e) => col[e]);
-    const vs = order.map((e) => value[e]);
-    for (let k = 0; k < per; k++) {
-      col[i * per + k] = cs[k];
-      value[i * per + k] = vs[k];
-    }
-  }
-  return { size: n, rowStart, col, value };
-}
+import { coarsestLumping, permutationMixture, type SparseChain } from "@/lib/discovery";
 
 function writeMatrixMarket(path: string, chain: SparseChain): void {
   const fd = openSync(path, "w");
@@ -122,11 +68,11 @@ function compareInProcess(name: string, chain: SparseChain, members: number): nu
 
 export async function main(args: string[]): Promise<void> {
   const quick = args.includes("--quick");
-  compareInProcess("100,000 states", permutationMixture(1000, 100, 7), 100);
+  compareInProcess("100,000 states", permutationMixture({ groups: 1000, members: 100, seed: 7 }), 100);
   if (quick) return;
   const dir = mkdtempSync(join(tmpdir(), "squarely-exact-"));
   try {
-    const [big, buildCpu] = seconds(() => permutationMixture(1000, 1000, 11));
+    const [big, buildCpu] = seconds(() => permutationMixture({ groups: 1000, members: 1000, seed: 11 }));
     const inProcessWall = compareInProcess("1,000,000 states", big, 1000);
     const file = join(dir, "mixture.mtx");
     writeMatrixMarket(file, big);

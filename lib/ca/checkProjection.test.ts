@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
-import { CaInputError, checkProjection, ecaRuleOf, ecaTable, type ProjectionCounterexample, type WindowWitness } from "./index";
+import { CaInputError, checkProjection, ecaRuleOf, ecaTable, supercellTable, type ProjectionCounterexample, type WindowWitness } from "./index";
 import { allOnes, centreAfter, parity } from "./testSupport";
 
 const ruleOf = (check: ReturnType<typeof checkProjection>) => (check.ok ? ecaRuleOf(check.coarse) : null);
@@ -113,5 +113,15 @@ describe("checkProjection input checks", () => {
     checkProjection(t, 3, proj);
     expect(proj).toEqual(parity(3));
     expect(ecaRuleOf(t)).toBe(105);
+  });
+});
+
+describe("checkProjection with a supercell table given by the caller", () => {
+  it("gives the same verdicts as building the table itself, and refuses a table of the wrong shape", () => {
+    const t = ecaTable(105);
+    const F = supercellTable(t, 2);
+    // rule 105 → rule 150 at block 2 (Israeli & Goldenfeld, Phys. Rev. Lett. 92, 074105, 2004) and a failing projection
+    for (const proj of [[0, 1, 1, 0], [0, 0, 0, 1], [0, 1, 2, 3]]) expect(checkProjection(t, 2, proj, { supercell: F })).toEqual(checkProjection(t, 2, proj));
+    expect(() => checkProjection(t, 2, [0, 1, 1, 0], { supercell: supercellTable(t, 3) })).toThrow(/supercell/);
   });
 });

@@ -27,6 +27,11 @@ export type CheckProjectionOptions = {
   steps?: number;
   /** A claimed coarse rule to compare with; without it the coarse rule is derived. */
   target?: RuleTable;
+  /**
+   * The table supercellTable(t, N, steps) returns, for a caller that checks many projections of one rule (it is
+   * used as given, so pass only the core's own table); its shape is checked.
+   */
+  supercell?: RuleTable;
 };
 
 /**
@@ -37,7 +42,9 @@ export type CheckProjectionOptions = {
 export function checkProjection(t: RuleTable, N: number, proj: ArrayLike<number>, options: CheckProjectionOptions = {}): ProjectionCheck {
   assertRuleTable(t);
   const T = options.steps ?? N;
-  const F = supercellTable(t, N, T);
+  const F = options.supercell ?? supercellTable(t, N, T);
+  if (options.supercell && (F.k !== t.k ** N || F.r !== Math.ceil((t.r * T) / N) || F.table.length !== F.k ** (2 * F.r + 1)))
+    throw new CaInputError("supercell", `the given supercell table does not have the shape of block ${N} with ${T} steps`);
   const K = F.k;
   const m = coarseAlphabet(proj, K);
   const width = 2 * F.r + 1;

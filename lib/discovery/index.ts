@@ -21,3 +21,6 @@ export type { ChainInput, SparseChain } from "./markov/sparseChain";
 export { readSparseMatrixMarket, MAX_SPARSE_STATES } from "./markov/readSparseMatrixMarket";
 export { buildTotalisticAtlas, totalisticTable, TOTALISTIC_CODES } from "./totalisticAtlas";
 export type { TotalisticAtlas, TotalisticAtlasOptions, TotalisticAtlasRow } from "./totalisticAtlas";
+export { permutationMixture } from "./markov/permutationMixture";
+export type { PermutationMixtureSpec } from "./markov/permutationMixture";
+export { searchAllCongruences, MAX_LISTED_CONGRUENCE_STATES } from "./searchAllCongruences";

@@ -3,7 +3,9 @@ import { solveZeroRootedProjections, type ProjectionClass } from "./ca/projectio
 import { assertBlock, assertSteps, resolveRule, type RuleOption } from "./ca/ruleInput";
 import { transportFrom, transportMap, transportTarget } from "./ca/symmetryTransport";
 import { ecaSupercell, type Supercell } from "./ca/supercell";
-import { solveZeroRootedWide } from "./ca/wideProjectionSolver";
+import { onDemandApplies, solveZeroRootedOnDemand } from "./ca/onDemandProjectionSolver";
+import { solveZeroRootedWide, type WideProjectionClass } from "./ca/wideProjectionSolver";
+import { wideRadius } from "./ca/wideSupercell";
 import { coverageRecord, type Coverage } from "./coverage";
 import { makeStopper, type LongRunOptions, type Stopped } from "./stopper";
 
@@ -70,11 +72,11 @@ function ecaTargets(all: Map<number, { count: bigint; example: number[] }>, tran
 }
 
 /**
- * Projections of a supercell of radius R > 1 (or any supercell with T ≠ N): the zero-rooted ones listed by the
- * wide solver, completed with their complements, whose coarse table is g'(x) = 1 − g(complement of x).
+ * Projections of a supercell of radius R > 1 (or any supercell with T ≠ N): the zero-rooted ones listed by a
+ * solver (on demand, or over the table), completed with their complements, whose coarse table is g'(x) = 1 − g(complement of x).
  */
-function wideTargets(cell: Supercell, shouldStop: () => boolean): BinaryProjectionTarget[] | null {
-  const zero = cell.radius === 1 ? radiusOneAsWide(cell, shouldStop) : solveZeroRootedWide(cell, { shouldStop })?.values();
+function wideTargets(radius: number, zeroRooted: () => Iterable<WideProjectionClass> | null | undefined): BinaryProjectionTarget[] | null {
+  const zero = zeroRooted();
   if (!zero) return null;
   const all = new Map<string, { table: number[]; count: bigint; example: number[] }>();
   const add = (table: number[], count: bigint, example: number[]) => {
@@ -89,7 +91,7 @@ function wideTargets(cell: Supercell, shouldStop: () => boolean): BinaryProjecti
     const size = c.table.length;
     add(Array.from({ length: size }, (_, x) => 1 - c.table[size - 1 - x]), c.count, Array.from(c.example, (b) => 1 - b));
   }
-  return [...all.values()].map(({ table, count, example }) => ({ target: eca(table), coarse: { k: 2, r: cell.radius, table }, count, example: example.join("") }));
+  return [...all.values()].map(({ table, count, example }) => ({ target: eca(table), coarse: { k: 2, r: radius, table }, count, example: example.join("") }));
 }
 
 /** The radius-1 model-counting solver's classes in the wide solver's shape. */
@@ -129,9 +131,11 @@ export function searchBinaryProjections(options: RuleOption & LongRunOptions & {
     const rep = ecaClassRepresentative(rule.eca as number);
     const zeroRooted = solveZeroRootedProjections(ecaSupercell(rep, block), { shouldStop });
     targets = zeroRooted ? ecaTargets(completeClasses(zeroRooted), transportFrom(rep, rule.eca as number), block) : null;
+  } else if (wideRadius(rule.table.r, block, steps) > 1 && onDemandApplies(rule.table, block, steps)) {
+    targets = wideTargets(wideRadius(rule.table.r, block, steps), () => solveZeroRootedOnDemand(rule.table, block, steps, { shouldStop })?.values());
   } else {
     const cell = rule.supercell(block, steps);
-    targets = wideTargets(cell, shouldStop);
+    targets = wideTargets(cell.radius, () => (cell.radius === 1 ? radiusOneAsWide(cell, shouldStop) : solveZeroRootedWide(cell, { shouldStop })?.values()));
   }
   const stopped = stop() ?? (targets ? null : "cancelled");
   const coverage = coverageRecord("projections", rule.eca !== null ? [rule.eca] : null, stopped ? [] : [block], stopped, stopped ? label : null);

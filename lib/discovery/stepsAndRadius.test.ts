@@ -154,6 +154,37 @@ describe("searches on radius-2 binary sources", () => {
     }
   }, 600_000);
 
+  it("agree with plain enumeration of every projection for random radius-2 rules at N = 3 (T = 2, 3), verified by the core's checker", () => {
+    const random = seededRandom(315);
+    const rules: RuleTable[] = Array.from({ length: 4 }, () => ({ k: 2, r: 2, table: Uint8Array.from({ length: 32 }, () => (random() < 0.5 ? 0 : 1)) }));
+    // and two with many projections: the identity x₀ (every projection commutes) and rule 90's 2-step iterate x₋₂ XOR x₂
+    rules.push({ k: 2, r: 2, table: Uint8Array.from({ length: 32 }, (_, i) => (i >> 2) & 1) });
+    rules.push({ k: 2, r: 2, table: Uint8Array.from({ length: 32 }, (_, i) => ((i >> 4) & 1) ^ (i & 1)) });
+    let found = 0;
+    for (const t of rules)
+      for (const T of [2, 3]) {
+        const F = supercellTable(t, 3, T);
+        const search = searchBinaryProjections({ table: t, block: 3, steps: T });
+        expect(search.stopped).toBeNull();
+        const got = new Map(search.targets.map((x) => [x.coarse.table.join(""), Number(x.count)]));
+        expect([T, got]).toEqual([T, plainProjections(F, windowDigits(F))]);
+        for (const target of search.targets) {
+          const check = checkProjection(t, 3, Array.from(target.example, Number), { steps: T });
+          expect(check.ok && Array.from(check.coarse.table).join("")).toBe(target.coarse.table.join(""));
+        }
+        found += [...got.values()].reduce((a, b) => a + b, 0);
+      }
+    // the identity alone gives all 2^8 − 2 projections at both step counts
+    expect(found).toBeGreaterThanOrEqual(2 * 254);
+  }, 600_000);
+
+  it("stop with 'cancelled' on a radius-2 source when the signal is aborted", () => {
+    const controller = new AbortController();
+    controller.abort();
+    const identity = { k: 2, r: 2, table: Uint8Array.from({ length: 32 }, (_, i) => (i >> 2) & 1) };
+    expect(searchBinaryProjections({ table: identity, block: 3, signal: controller.signal })).toMatchObject({ stopped: "cancelled", targets: [] });
+  });
+
   it("search the 2-step iterate of an ECA (a radius-2 rule) like any other table", () => {
     const iterate = iterateTable(ecaTable(150), 2);
     expect(iterate.r).toBe(2);

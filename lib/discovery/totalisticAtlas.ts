@@ -2,10 +2,11 @@
  * Three-state totalistic radius-1 rules (DOMAIN.md §2b, common practice): the new value depends only on the sum
  * s = x₋₁ + x₀ + x₁ ∈ {0..6}; code c = Σ_s v(s)·3^s, so the value for sum s is base-3 digit s of c (digit 0 least
  * significant); 3^7 = 2,187 codes. The atlas lists, per code and block size (1: partitions of the three states;
- * 2: partitions of the nine block states), the proper congruences the congruence search finds.
+ * 2: partitions of the nine block states), every proper congruence (searchAllCongruences).
  */
 import { CaInputError, type RuleTable } from "@/lib/ca";
-import { searchCongruences, type Congruence } from "./searchCongruences";
+import { searchAllCongruences } from "./searchAllCongruences";
+import type { Congruence } from "./searchCongruences";
 import { coverageRecord, type Coverage } from "./coverage";
 import { makeStopper, type LongRunOptions, type Stopped } from "./stopper";
 
@@ -24,7 +25,7 @@ export function totalisticTable(code: number): RuleTable {
 export interface TotalisticAtlasRow {
   code: number;
   block: number;
-  /** proper congruences, coarsest first (principal ones and maximal ones reached from them) */
+  /** every proper congruence, fewest classes first, maximal ones marked */
   congruences: Congruence[];
 }
 
@@ -57,7 +58,8 @@ export function buildTotalisticAtlas(options: TotalisticAtlasOptions = {}): Tota
       if (i % 64 === 0) options.onProgress?.((b * codes.length + i) / total, item);
       const stopped = stop();
       if (stopped) return { stopped, rows, blocks: covered, coverage: coverageRecord("partitions", null, covered, stopped, item) };
-      const search = searchCongruences({ table: totalisticTable(code), block: N, limit: Infinity });
+      const search = searchAllCongruences({ table: totalisticTable(code), block: N, signal: options.signal });
+      if (search.stopped) return { stopped: search.stopped, rows, blocks: covered, coverage: coverageRecord("partitions", null, covered, search.stopped, item) };
       if (search.congruences.length > 0) rows.push({ code, block: N, congruences: search.congruences });
     }
     covered.push(N);

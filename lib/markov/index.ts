@@ -12,3 +12,5 @@ export { parseCsvMatrix, parseMatrixMarket } from "./parseMatrix";
 export type { ParseMatrixOptions } from "./parseMatrix";
 export { stationaryDistributions, communicatingClasses, applyRow } from "./stationaryDistributions";
 export type { StationaryClass, StationaryResult } from "./stationaryDistributions";
+export { checkExactLumpingSparse } from "./checkExactLumpingSparse";
+export type { LumpedEntry, SparseExactLumpingCheck, SparseRows } from "./checkExactLumpingSparse";

@@ -4,6 +4,7 @@ import { Cursor, IdParams } from "@/app/api/_lib/schemas";
 import { errorResponses, jsonBody, type RouteConfig } from "@/app/api/_lib/doc";
 import { EcaAtlasParams } from "@/server/jobs/kinds/eca-atlas.compute";
 import { LumpChainParams } from "@/server/jobs/kinds/lump-chain.compute";
+import { LumpLargeChainParams } from "@/server/jobs/kinds/lump-large-chain.compute";
 import { SearchProjectionParams } from "@/server/jobs/kinds/search-projection.compute";
 import { TotalisticAtlasParams } from "@/server/jobs/kinds/totalistic-atlas.compute";
 import { VerifyChainParams } from "@/server/jobs/kinds/verify-chain.compute";
@@ -24,6 +25,7 @@ export const CreateJobDoc = z
     z.object({ kind: z.literal("lump-chain"), params: LumpChainParams }).meta({ description: "The coarsest lumping of a chain refining an observable." }),
     z.object({ kind: z.literal("verify-chain"), params: VerifyChainParams }).meta({ description: "A chain of certificates checked as one composite." }),
     z.object({ kind: z.literal("totalistic-atlas"), params: TotalisticAtlasParams }).meta({ description: "Proper congruences of the three-state totalistic rules at block 1 and 2." }),
+    z.object({ kind: z.literal("lump-large-chain"), params: LumpLargeChainParams }).meta({ description: "The coarsest exact lumping of a generated chain of up to two million states." }),
   ])
   .meta({ id: "CreateJob" });
 

@@ -1,6 +1,7 @@
 // Loaded by the job worker threads (server/jobs/worker.mjs): lib/ only, no database, no Next.
 import { compute as ecaAtlas } from "./eca-atlas.compute";
 import { compute as lumpChain } from "./lump-chain.compute";
+import { compute as lumpLargeChain } from "./lump-large-chain.compute";
 import { compute as searchProjection } from "./search-projection.compute";
 import { compute as totalisticAtlas } from "./totalistic-atlas.compute";
 import { compute as verifyChain } from "./verify-chain.compute";
@@ -17,6 +18,7 @@ export type ComputeFunction = (params: never, context: ComputeContext) => unknow
 export const COMPUTES = {
   "eca-atlas": ecaAtlas,
   "lump-chain": lumpChain,
+  "lump-large-chain": lumpLargeChain,
   "search-projection": searchProjection,
   "totalistic-atlas": totalisticAtlas,
   "verify-chain": verifyChain,

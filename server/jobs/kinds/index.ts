@@ -1,5 +1,6 @@
 import { ecaAtlasKind } from "./eca-atlas";
 import { lumpChainKind } from "./lump-chain";
+import { lumpLargeChainKind } from "./lump-large-chain";
 import { registerJobKind } from "./registry";
 import { searchProjectionKind } from "./search-projection";
 import { totalisticAtlasKind } from "./totalistic-atlas";
@@ -10,3 +11,4 @@ import { verifyMapKind } from "./verify-map";
 for (const kind of [ecaAtlasKind, searchProjectionKind, lumpChainKind, verifyChainKind]) registerJobKind(kind);
 registerJobKind(totalisticAtlasKind);
 registerJobKind(verifyMapKind);
+registerJobKind(lumpLargeChainKind);
