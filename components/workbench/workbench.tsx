@@ -5,7 +5,8 @@ import { ReactFlowProvider, useReactFlow } from "reactflow";
 import { buttonClass } from "@/components/ui/button";
 import type { Model } from "@/lib/models";
 import { browserApi, newId } from "./api";
-import { certifyWorkbench } from "./certifyWorkbench";
+import { CounterexampleView } from "@/components/counterexample/counterexample-view";
+import { certifyWorkbench, type CertifyOutcome } from "./certifyWorkbench";
 import { nodeLabel } from "./derivedModels";
 import { layoutWorkbench, placeNew } from "./layoutWorkbench";
 import { MapEditor, STATE_CLASS, STATE_TEXT, type JobProgress } from "./map-editor";
@@ -46,7 +47,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const [draftName, setDraftName] = useState(initialDraft?.name ?? DEFAULT_NAME);
   const [saveState, setSaveState] = useState<"saved" | "saving" | "unsaved" | "error">("saved");
   const [certifying, setCertifying] = useState(false);
-  const [outcome, setOutcome] = useState<{ ok: boolean; message: string; chainId: string | null } | null>(null);
+  const [outcome, setOutcome] = useState<CertifyOutcome | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const flow = useReactFlow();
   const inspectorRef = useRef<HTMLElement>(null);
@@ -395,6 +396,11 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
               <p className={`text-xs ${outcome.ok ? "text-moss-700" : "text-brick-700"}`} role="status" data-certify-outcome={outcome.ok ? "ok" : "failed"}>
                 {outcome.message}
               </p>
+            ) : null}
+            {outcome?.counterexample ? (
+              <div data-chain-counterexample>
+                <CounterexampleView counterexample={outcome.counterexample} compact />
+              </div>
             ) : null}
             {w.chain.id ? (
               <p className="text-xs">
