@@ -6,6 +6,7 @@ import { buttonClass } from "@/components/ui/button";
 import type { Model } from "@/lib/models";
 import { browserApi, newId } from "./api";
 import { CounterexampleView } from "@/components/counterexample/counterexample-view";
+import { atlasMapText } from "./atlasMaps";
 import { certifyWorkbench, type CertifyOutcome } from "./certifyWorkbench";
 import { nodeLabel } from "./derivedModels";
 import { layoutWorkbench, placeNew } from "./layoutWorkbench";
@@ -145,7 +146,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     }
     dispatch({
       type: "add-atlas-map",
-      map: { id: m.id, certificateAddress: null, spec: null },
+      map: { id: m.id, certificateAddress: null, spec: null, text: atlasMapText(m) },
       source: { modelId: m.source.id, name: m.source.name, model: (s.body as { model: Model }).model },
       target: { modelId: m.target.id, name: m.target.name, model: (t.body as { model: Model }).model },
       ids: { source: newId("n"), target: newId("n"), edge: newId("e") },
