@@ -1,12 +1,13 @@
 "use client";
 
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from "react";
-import { ReactFlowProvider, useReactFlow } from "reactflow";
+import { getTransformForBounds, ReactFlowProvider, useReactFlow, useStoreApi } from "reactflow";
 import { buttonClass } from "@/components/ui/button";
 import type { Model } from "@/lib/models";
 import { browserApi, newId } from "./api";
 import { CounterexampleView } from "@/components/counterexample/counterexample-view";
 import { atlasMapText } from "./atlasMaps";
+import { canvasBounds } from "./canvasBounds";
 import { certifyWorkbench, type CertifyOutcome } from "./certifyWorkbench";
 import { nodeLabel } from "./derivedModels";
 import { layoutWorkbench, placeNew } from "./layoutWorkbench";
@@ -15,7 +16,7 @@ import { MapSearch, type AtlasMap } from "./map-search";
 import { AddModelPanel, inputClass, type NewModel } from "./model-forms";
 import { NodeInspector } from "./node-inspector";
 import { edgeText, NODE_HEIGHT, NODE_WIDTH, WorkbenchCanvas } from "./workbench-canvas";
-import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbNode, type Workbench as Canvas } from "./workbenchState";
+import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbEdge, type WbNode, type Workbench as Canvas } from "./workbenchState";
 
 export type DraftInfo = { id: string; name: string; shared: boolean; mine: boolean; ownerName: string };
 
@@ -51,6 +52,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const [outcome, setOutcome] = useState<CertifyOutcome | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const flow = useReactFlow();
+  const flowStore = useStoreApi();
   const inspectorRef = useRef<HTMLElement>(null);
   const readOnly = !canEdit;
 
@@ -155,7 +157,21 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
 
   function relayout() {
     dispatch({ type: "positions", positions: layoutWorkbench(w, { width: NODE_WIDTH, height: NODE_HEIGHT + 30 }) });
-    setTimeout(() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 200 }), 50);
+    setTimeout(() => fitCanvas(200), 50);
+  }
+
+  /** Fit to view with the edge labels (React Flow's fitView counts only nodes, so a label could be cut off on a phone). */
+  function fitCanvas(duration: number) {
+    const nodes = flow.getNodes().map((n) => ({ id: n.id, x: n.position.x, y: n.position.y }));
+    const edges = flow.getEdges().map((e) => {
+      const edge = (e.data as { edge?: WbEdge } | undefined)?.edge;
+      return { source: e.source, target: e.target, text: edge ? edgeText(edge) : "", refused: edge?.state === "refused" && Boolean(edge.problem?.counterexample) };
+    });
+    const bounds = canvasBounds(nodes, edges);
+    const { width, height } = flowStore.getState();
+    if (!bounds || !width || !height) return;
+    const [x, y, zoom] = getTransformForBounds(bounds, width, height, 0.1, 1.1, 0.08);
+    flow.setViewport({ x, y, zoom }, { duration });
   }
 
   async function certify() {
@@ -173,13 +189,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       const result = await certifyWorkbench(w, browserApi, dispatch, { jobs });
       setOutcome(result);
       // A refused map's counterexample is drawn to the right of its edge: widen the view to show it.
-      if (!result.ok && w.nodes.length > 0) {
-        const left = Math.min(...w.nodes.map((n) => n.x));
-        const top = Math.min(...w.nodes.map((n) => n.y));
-        const right = Math.max(...w.nodes.map((n) => n.x)) + NODE_WIDTH + 280;
-        const bottom = Math.max(...w.nodes.map((n) => n.y)) + NODE_HEIGHT;
-        setTimeout(() => flow.fitBounds({ x: left, y: top, width: right - left, height: bottom - top }, { padding: 0.15, duration: 150 }), 100);
-      }
+      if (!result.ok && w.nodes.length > 0) setTimeout(() => fitCanvas(150), 100);
     } finally {
       setCertifying(false);
     }
@@ -208,13 +218,18 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     });
   }, []);
 
+  // The latest fitCanvas for the effect below (it reads React Flow's own state, so it need not re-run on every render).
+  const fitCanvasRef = useRef(fitCanvas);
+  useEffect(() => {
+    fitCanvasRef.current = fitCanvas;
+  });
   // A node added or removed: bring the whole canvas into view once React Flow has measured it.
   const nodeCount = w.nodes.length;
   useEffect(() => {
     if (nodeCount === 0) return;
-    const timer = setTimeout(() => flow.fitView({ padding: 0.3, maxZoom: 1.1, duration: 150 }), 80);
+    const timer = setTimeout(() => fitCanvasRef.current(150), 80);
     return () => clearTimeout(timer);
-  }, [nodeCount, flow]);
+  }, [nodeCount]);
 
   const path = useMemo(() => chainPath(w), [w]);
   const selectedNode = selected?.type === "node" ? w.nodes.find((n) => n.id === selected.id) : undefined;
@@ -252,7 +267,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
           </button>
             </>
           )}
-          <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} onClick={() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 200 })}>
+          <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} onClick={() => fitCanvas(200)}>
             Fit to view
           </button>
           {draft && canEdit ? (
