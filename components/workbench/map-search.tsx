@@ -33,8 +33,9 @@ export function MapSearch({ onAdd, disabled }: { onAdd: (m: AtlasMap) => void; d
           const to = names.get(m.target.id) ?? m.target.name;
           return (
             <li key={m.id} className="flex items-center gap-1 rounded border border-line px-1.5 py-0.5">
-              <span className="min-w-0 flex-1 truncate text-xs" title={`${from} → ${to}, ${atlasMapText(m)}`}>
-                {from} → {to} <span className="font-mono text-ink-faint">{atlasMapText(m)}</span>
+              {/* Wrapped, not cut: the names that tell two models apart are at their end. */}
+              <span className="min-w-0 flex-1 text-xs leading-snug break-words">
+                {from} → {to} <span className="block font-mono text-ink-faint">{atlasMapText(m)}</span>
               </span>
               <button type="button" disabled={disabled} onClick={() => onAdd(m)} className="rounded px-1 text-xs font-semibold text-tide-800 ring-1 ring-line-strong disabled:opacity-40" aria-label={`Add ${from} → ${to} (${atlasMapText(m)})`}>
                 Add
