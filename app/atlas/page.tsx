@@ -54,6 +54,7 @@ async function Results({ workspaceId, filters, view }: { workspaceId: string; fi
       mapKind: filters.mapKind as MapKind | undefined,
       modelKind: filters.kind as ModelKind | undefined,
       includeRetracted: view === "maps",
+      constantTargets: view === "maps" ? (filters.constant ?? "exclude") : undefined,
       cursor: filters.cursor,
       limit: 40,
     });
@@ -72,8 +73,14 @@ async function Results({ workspaceId, filters, view }: { workspaceId: string; fi
     throw err;
   }
   const pager = <CursorPager filters={{ ...filters, view }} nextCursor={result.nextCursor} />;
+  const constantLine = result.target === "maps" ? <ConstantMapsLine filters={filters} folded={result.constantFolded ?? 0} /> : null;
   if (result.items.length === 0) {
-    return <p className="py-6 text-center text-sm text-ink-faint">Nothing in this atlas matches these filters.</p>;
+    return (
+      <div className="space-y-3">
+        <p className="py-6 text-center text-sm text-ink-faint">Nothing in this atlas matches these filters.</p>
+        {constantLine}
+      </div>
+    );
   }
   if (result.target === "models") {
     const rows = result.items.map((m) => ({ ...m, tags: parseTags(m.tags) }));
@@ -99,10 +106,43 @@ async function Results({ workspaceId, filters, view }: { workspaceId: string; fi
   }));
   return (
     <div className="space-y-3">
+      {constantLine}
       <MapTable rows={rows} otherHeading="Coarse-grains onto" empty="" />
       {pager}
       {filters.cursor ? null : <CompositeMaps workspaceId={workspaceId} kind={filters.mapKind} block={filters.block} q={filters.q} />}
     </div>
+  );
+}
+
+/**
+ * Nearly every rule coarse-grains onto the constant rules, so the maps list folds those maps into one
+ * line that lists them (a URL parameter, so the unfolded list is linkable), as the dashboard does.
+ */
+function ConstantMapsLine({ filters, folded }: { filters: AtlasFilters; folded: number }) {
+  const { cursor: _cursor, constant, ...rest } = filters;
+  const link = "font-medium text-tide-800 underline";
+  if (constant) {
+    return (
+      <p className="text-sm text-ink-soft" data-constant-maps={constant}>
+        {constant === "only" ? "Only the maps onto the constant rules (ECA 0, ECA 255) are listed." : "The maps onto the constant rules (ECA 0, ECA 255) are listed."}{" "}
+        <Link href={atlasHref({ ...rest, view: "maps" })} className={link}>
+          Fold them
+        </Link>
+      </p>
+    );
+  }
+  if (folded === 0) return null;
+  return (
+    <p className="text-sm text-ink-soft" data-constant-maps="folded">
+      {folded} {folded === 1 ? "map" : "maps"} onto the constant rules (ECA 0, ECA 255) —{" "}
+      <Link href={atlasHref({ ...rest, view: "maps", constant: "include" })} className={link}>
+        show them
+      </Link>{" "}
+      or{" "}
+      <Link href={atlasHref({ ...rest, view: "maps", constant: "only" })} className={link}>
+        only them
+      </Link>
+    </p>
   );
 }
 

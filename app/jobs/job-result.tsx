@@ -18,6 +18,8 @@ type Result = {
   verification?: string;
   summary?: string;
   counterexample?: unknown;
+  /** verify-chain, failed: the link at fault (0-based), or null for the composite. */
+  link?: number | null;
   /** verify-map: the map it stored, or why not. */
   mapId?: string;
   status?: string;
@@ -121,7 +123,15 @@ export function JobResultView({ result, params }: { result: unknown; params: unk
   return (
     <div className="space-y-2" data-job-result>
       {items.length ? <ul className="space-y-1 text-sm">{items}</ul> : null}
-      {r.counterexample ? <CounterexampleView counterexample={r.counterexample} /> : null}
+      {r.counterexample ? <CounterexampleView counterexample={r.counterexample} labels={linkLabels(params, r.link)} /> : null}
     </div>
   );
+}
+
+/** The state labels of the failing link's source chain (verify-chain), to name a lumping's states by label. */
+function linkLabels(params: unknown, link: number | null | undefined): string[] | undefined {
+  const certificates = (params as { certificates?: unknown })?.certificates;
+  if (!Array.isArray(certificates)) return undefined;
+  const labels = (certificates[link ?? 0] as { source?: { labels?: unknown } } | undefined)?.source?.labels;
+  return Array.isArray(labels) && labels.every((l) => typeof l === "string") ? labels : undefined;
 }

@@ -85,6 +85,14 @@ export function AtlasFilterForm({
           ))}
         </select>
       </Field>
+      {filters.constant ? <input type="hidden" name="constant" value={filters.constant} /> : null}
+      {problems
+        .filter((p) => p.field === "view" || p.field === "constant")
+        .map((p) => (
+          <p key={p.field} className="col-span-2 text-xs text-brick-700 sm:col-span-4 lg:col-span-8" role="alert">
+            The link&apos;s “{p.field}” {p.message}; it was left out.
+          </p>
+        ))}
       <div className="col-span-2 flex items-end gap-2 sm:col-span-4 lg:col-span-8">
         <button type="submit" className="rounded bg-tide-700 px-3 py-1 text-sm font-medium text-paper-raised hover:bg-tide-800">
           Search

@@ -20,6 +20,14 @@ describe("parseAtlasFilters", () => {
     expect(problems[0].message).toBe("must be a whole number from 0 to 255");
   });
 
+  it("reads whether the maps list includes the maps onto the constant rules, and names a bad value", () => {
+    expect(parseAtlasFilters({ view: "maps", constant: "include" }, allowed).filters).toEqual({ view: "maps", constant: "include" });
+    expect(parseAtlasFilters({ constant: "only" }, allowed).filters).toEqual({ constant: "only" });
+    const bad = parseAtlasFilters({ constant: "all" }, allowed);
+    expect(bad.filters).toEqual({});
+    expect(bad.problems).toEqual([{ field: "constant", message: "must be include or only" }]);
+  });
+
   it("takes the first of repeated parameters and ignores empty ones", () => {
     expect(parseAtlasFilters({ rule: ["30", "90"], q: "", tag: "  " }, allowed).filters).toEqual({ rule: 30 });
   });

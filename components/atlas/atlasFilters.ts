@@ -9,6 +9,8 @@ export type AtlasFilters = {
   kind?: string;
   /** List models (nodes) or maps (edges). */
   view?: "models" | "maps";
+  /** The maps list folds the maps onto the constant rules (ECA 0, 255) unless asked to include them or list only them. */
+  constant?: "include" | "only";
   cursor?: string;
 };
 
@@ -51,6 +53,11 @@ export function parseAtlasFilters(
   if (view !== undefined) {
     if (view === "models" || view === "maps") filters.view = view;
     else problems.push({ field: "view", message: "must be models or maps" });
+  }
+  const constant = first(params.constant);
+  if (constant !== undefined) {
+    if (constant === "include" || constant === "only") filters.constant = constant;
+    else problems.push({ field: "constant", message: "must be include or only" });
   }
   const kind = first(params.kind);
   if (kind !== undefined) {

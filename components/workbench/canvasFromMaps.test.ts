@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { canvasFromMaps, type AtlasMapView } from "./canvasFromMaps";
+import { edgeText } from "./workbench-canvas";
 
 const eca = (rule: number) => ({ id: `m${rule}`, name: `ECA ${rule}`, model: { kind: "eca" as const, rule } });
 const map = (id: string, from: number, to: number, kind = "projection", block: number | null = 2, steps: number | null = 2): AtlasMapView => ({
@@ -21,9 +22,11 @@ describe("canvasFromMaps", () => {
       ["n3", "ECA 128", "m128"],
     ]);
     expect(w.edges).toEqual([
-      { id: "e1", source: "n1", target: "n2", spec: null, state: "certified", mapId: "a", certificateAddress: "sha256:a", problem: null },
-      { id: "e2", source: "n2", target: "n3", spec: null, state: "certified", mapId: "b", certificateAddress: "sha256:b", problem: null },
+      { id: "e1", source: "n1", target: "n2", spec: null, state: "certified", mapId: "a", certificateAddress: "sha256:a", problem: null, atlasText: "projection N=3 T=3" },
+      { id: "e2", source: "n2", target: "n3", spec: null, state: "certified", mapId: "b", certificateAddress: "sha256:b", problem: null, atlasText: "projection N=2 T=2" },
     ]);
+    // The canvas says what each stored map is rather than only that it is certified.
+    expect(w.edges.map(edgeText)).toEqual(["projection N=3 T=3", "projection N=2 T=2"]);
   });
 
   it("keeps two maps that do not meet as two separate paths, and shows a decimation's steps", () => {

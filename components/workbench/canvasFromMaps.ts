@@ -1,4 +1,5 @@
 import type { ModelInput } from "@/lib/models";
+import { atlasMapText } from "./atlasMaps";
 import { layoutWorkbench } from "./layoutWorkbench";
 import { applyEdit, emptyWorkbench, type MapSpec, type Workbench } from "./workbenchState";
 
@@ -30,7 +31,7 @@ export function canvasFromMaps(maps: AtlasMapView[], size: { width: number; heig
     const n = w.nodes.length;
     w = applyEdit(w, {
       type: "add-atlas-map",
-      map: { id: m.id, certificateAddress: m.certificateAddress, spec: specOf(m) },
+      map: { id: m.id, certificateAddress: m.certificateAddress, spec: specOf(m), text: atlasMapText(m) },
       source: { modelId: m.source.id, name: m.source.name, model: m.source.model },
       target: { modelId: m.target.id, name: m.target.name, model: m.target.model },
       ids: { source: `n${n + 1}`, target: `n${n + (w.nodes.some((x) => x.modelId === m.source.id) ? 1 : 2)}`, edge: `e${w.edges.length + 1}` },

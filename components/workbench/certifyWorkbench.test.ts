@@ -123,6 +123,28 @@ describe("certifyWorkbench", () => {
     expect((refused.patch.problem?.counterexample as { kind: string }).kind).toBe("not-a-function");
   });
 
+  it("hands on the counterexample of a chain the server refused, for the page to draw", async () => {
+    // A failing square found by the core's builder (rule 110, block 2, "all ones"), standing in for what the chain check returns.
+    const built = certifyProjection({ rule: 110, block: 2, projection: [0, 0, 0, 1] });
+    if (built.ok) throw new Error("expected the all-ones projection of rule 110 to fail");
+    const answer = {
+      models: [],
+      maps: [
+        { key: "e1", status: "certified", mapId: "map1", address: "sha256:a" },
+        { key: "e2", status: "certified", mapId: "map2", address: "sha256:b" },
+      ],
+      chain: { status: "refused", message: "link 2 does not verify: the square does not commute", link: 1, counterexample: built.counterexample },
+    };
+    const { api } = fakeApi({ override: (_m, path) => (path === "/api/chains/workbench" ? { status: 200, body: answer } : null) });
+    const outcome = await certifyWorkbench(parityTwice, api, () => {});
+    expect(outcome).toEqual({
+      ok: false,
+      message: "The chain was not stored: link 2 does not verify: the square does not commute",
+      chainId: null,
+      counterexample: built.counterexample,
+    });
+  });
+
   it("puts the maps back to proposed when the role is refused", async () => {
     const { api } = fakeApi({ override: (_m, path) => (path === "/api/chains/workbench" ? { status: 403, body: { error: { message: "no" } } } : null) });
     const actions: WbAction[] = [];

@@ -10,7 +10,8 @@ export type ApiCall = (method: "GET" | "POST" | "PATCH" | "DELETE", path: string
 /** Follows a job: waits `pollMs` between looks, and reports progress (0–1) with the job's current item. */
 export type JobFollower = { pollMs: number; wait: (ms: number) => Promise<void>; onProgress: (progress: number, item: string | null, edgeIds: string[]) => void };
 
-export type CertifyOutcome = { ok: boolean; message: string; chainId: string | null };
+/** `counterexample`: the checker's, when the chain (a link or its composite) does not verify, for the page to draw. */
+export type CertifyOutcome = { ok: boolean; message: string; chainId: string | null; counterexample?: unknown };
 
 type ErrorBody = { error?: { message?: string; field?: string; details?: { counterexample?: unknown; link?: number | null } } };
 
@@ -26,7 +27,7 @@ export type WorkbenchAnswer = {
     counterexample?: unknown;
     build?: unknown;
   }[];
-  chain: { status: string; chainId?: string; address?: string; verification?: string; message?: string } | null;
+  chain: { status: string; chainId?: string; address?: string; verification?: string; message?: string; counterexample?: unknown } | null;
 };
 
 function errorOf(body: unknown): NonNullable<ErrorBody["error"]> {
@@ -142,7 +143,7 @@ function outcomeOf(w: Workbench, answer: WorkbenchAnswer): CertifyOutcome {
     const links = chainPath(w).ok ? (chainPath(w) as { edges: WbEdge[] }).edges.length : 0;
     return { ok: true, message: `Every map and the chain of ${links} are certified (${verificationName(chain.verification ?? "")}).`, chainId: chain.chainId };
   }
-  if (chain) return { ok: false, message: `The chain was not stored: ${chain.message ?? chain.status}`, chainId: null };
+  if (chain) return { ok: false, message: `The chain was not stored: ${chain.message ?? chain.status}`, chainId: null, ...withCounterexample(chain.counterexample) };
   const path = chainPath(w);
   return { ok: true, message: path.ok ? (path.edges.length === 1 ? "The map is certified." : "Every map is certified.") : `Every map is certified. No chain stored: ${path.reason}`, chainId: null };
 }
@@ -190,8 +191,13 @@ async function composeAsJob(name: string, links: WbEdge[], api: ApiCall, apply: 
   const job = await followJob("verify-chain", { name, certificates, save: true }, api, jobs, links.map((l) => l.id));
   if ("error" in job && !("status" in job)) return { ok: false, message: `The chain check could not start: ${job.error}`, chainId: null };
   const done = job as JobBody;
-  const result = done.result as { chainId?: string; composite?: string; verification?: string } | null;
-  if (done.status !== "succeeded" || !result?.chainId) return { ok: false, message: `The chain was not stored: ${done.error ?? done.status}`, chainId: null };
+  const result = done.result as { chainId?: string; composite?: string; verification?: string; counterexample?: unknown } | null;
+  if (done.status !== "succeeded" || !result?.chainId) return { ok: false, message: `The chain was not stored: ${done.error ?? done.status}`, chainId: null, ...withCounterexample(result?.counterexample) };
   apply({ type: "chain-result", id: result.chainId, address: result.composite ?? "" });
   return { ok: true, message: `Every map and the chain of ${links.length} are certified (${verificationName(result.verification ?? "")}, checked as a job).`, chainId: result.chainId };
+}
+
+/** A failed chain check's counterexample (the workbench answer's or the verify-chain job's), when there is one. */
+function withCounterexample(counterexample: unknown): { counterexample?: unknown } {
+  return counterexample ? { counterexample } : {};
 }

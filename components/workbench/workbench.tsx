@@ -1,11 +1,14 @@
 "use client";
 
 import { useCallback, useEffect, useMemo, useReducer, useRef, useState } from "react";
-import { ReactFlowProvider, useReactFlow } from "reactflow";
+import { getTransformForBounds, ReactFlowProvider, useReactFlow, useStoreApi } from "reactflow";
 import { buttonClass } from "@/components/ui/button";
 import type { Model } from "@/lib/models";
 import { browserApi, newId } from "./api";
-import { certifyWorkbench } from "./certifyWorkbench";
+import { CounterexampleView } from "@/components/counterexample/counterexample-view";
+import { atlasMapText } from "./atlasMaps";
+import { canvasBounds } from "./canvasBounds";
+import { certifyWorkbench, type CertifyOutcome } from "./certifyWorkbench";
 import { nodeLabel } from "./derivedModels";
 import { layoutWorkbench, placeNew } from "./layoutWorkbench";
 import { MapEditor, STATE_CLASS, STATE_TEXT, type JobProgress } from "./map-editor";
@@ -13,7 +16,7 @@ import { MapSearch, type AtlasMap } from "./map-search";
 import { AddModelPanel, inputClass, type NewModel } from "./model-forms";
 import { NodeInspector } from "./node-inspector";
 import { edgeText, NODE_HEIGHT, NODE_WIDTH, WorkbenchCanvas } from "./workbench-canvas";
-import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbNode, type Workbench as Canvas } from "./workbenchState";
+import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbEdge, type WbNode, type Workbench as Canvas } from "./workbenchState";
 
 export type DraftInfo = { id: string; name: string; shared: boolean; mine: boolean; ownerName: string };
 
@@ -46,9 +49,10 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
   const [draftName, setDraftName] = useState(initialDraft?.name ?? DEFAULT_NAME);
   const [saveState, setSaveState] = useState<"saved" | "saving" | "unsaved" | "error">("saved");
   const [certifying, setCertifying] = useState(false);
-  const [outcome, setOutcome] = useState<{ ok: boolean; message: string; chainId: string | null } | null>(null);
+  const [outcome, setOutcome] = useState<CertifyOutcome | null>(null);
   const [notice, setNotice] = useState<string | null>(null);
   const flow = useReactFlow();
+  const flowStore = useStoreApi();
   const inspectorRef = useRef<HTMLElement>(null);
   const readOnly = !canEdit;
 
@@ -144,7 +148,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     }
     dispatch({
       type: "add-atlas-map",
-      map: { id: m.id, certificateAddress: null, spec: null },
+      map: { id: m.id, certificateAddress: null, spec: null, text: atlasMapText(m) },
       source: { modelId: m.source.id, name: m.source.name, model: (s.body as { model: Model }).model },
       target: { modelId: m.target.id, name: m.target.name, model: (t.body as { model: Model }).model },
       ids: { source: newId("n"), target: newId("n"), edge: newId("e") },
@@ -153,7 +157,21 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
 
   function relayout() {
     dispatch({ type: "positions", positions: layoutWorkbench(w, { width: NODE_WIDTH, height: NODE_HEIGHT + 30 }) });
-    setTimeout(() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 200 }), 50);
+    setTimeout(() => fitCanvas(200), 50);
+  }
+
+  /** Fit to view with the edge labels (React Flow's fitView counts only nodes, so a label could be cut off on a phone). */
+  function fitCanvas(duration: number) {
+    const nodes = flow.getNodes().map((n) => ({ id: n.id, x: n.position.x, y: n.position.y }));
+    const edges = flow.getEdges().map((e) => {
+      const edge = (e.data as { edge?: WbEdge } | undefined)?.edge;
+      return { source: e.source, target: e.target, text: edge ? edgeText(edge) : "", refused: edge?.state === "refused" && Boolean(edge.problem?.counterexample) };
+    });
+    const bounds = canvasBounds(nodes, edges);
+    const { width, height } = flowStore.getState();
+    if (!bounds || !width || !height) return;
+    const [x, y, zoom] = getTransformForBounds(bounds, width, height, 0.1, 1.1, 0.08);
+    flow.setViewport({ x, y, zoom }, { duration });
   }
 
   async function certify() {
@@ -171,13 +189,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       const result = await certifyWorkbench(w, browserApi, dispatch, { jobs });
       setOutcome(result);
       // A refused map's counterexample is drawn to the right of its edge: widen the view to show it.
-      if (!result.ok && w.nodes.length > 0) {
-        const left = Math.min(...w.nodes.map((n) => n.x));
-        const top = Math.min(...w.nodes.map((n) => n.y));
-        const right = Math.max(...w.nodes.map((n) => n.x)) + NODE_WIDTH + 280;
-        const bottom = Math.max(...w.nodes.map((n) => n.y)) + NODE_HEIGHT;
-        setTimeout(() => flow.fitBounds({ x: left, y: top, width: right - left, height: bottom - top }, { padding: 0.15, duration: 150 }), 100);
-      }
+      if (!result.ok && w.nodes.length > 0) setTimeout(() => fitCanvas(150), 100);
     } finally {
       setCertifying(false);
     }
@@ -206,13 +218,18 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
     });
   }, []);
 
+  // The latest fitCanvas for the effect below (it reads React Flow's own state, so it need not re-run on every render).
+  const fitCanvasRef = useRef(fitCanvas);
+  useEffect(() => {
+    fitCanvasRef.current = fitCanvas;
+  });
   // A node added or removed: bring the whole canvas into view once React Flow has measured it.
   const nodeCount = w.nodes.length;
   useEffect(() => {
     if (nodeCount === 0) return;
-    const timer = setTimeout(() => flow.fitView({ padding: 0.3, maxZoom: 1.1, duration: 150 }), 80);
+    const timer = setTimeout(() => fitCanvasRef.current(150), 80);
     return () => clearTimeout(timer);
-  }, [nodeCount, flow]);
+  }, [nodeCount]);
 
   const path = useMemo(() => chainPath(w), [w]);
   const selectedNode = selected?.type === "node" ? w.nodes.find((n) => n.id === selected.id) : undefined;
@@ -250,7 +267,7 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
           </button>
             </>
           )}
-          <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} onClick={() => flow.fitView({ padding: 0.2, maxZoom: 1.2, duration: 200 })}>
+          <button type="button" className={buttonClass("secondary", "px-2 py-1 text-xs")} onClick={() => fitCanvas(200)}>
             Fit to view
           </button>
           {draft && canEdit ? (
@@ -395,6 +412,11 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
               <p className={`text-xs ${outcome.ok ? "text-moss-700" : "text-brick-700"}`} role="status" data-certify-outcome={outcome.ok ? "ok" : "failed"}>
                 {outcome.message}
               </p>
+            ) : null}
+            {outcome?.counterexample ? (
+              <div data-chain-counterexample>
+                <CounterexampleView counterexample={outcome.counterexample} compact />
+              </div>
             ) : null}
             {w.chain.id ? (
               <p className="text-xs">

@@ -32,6 +32,8 @@ export type WbEdge = {
   certificateAddress: string | null;
   /** Why the server refused it: a sentence and, for a failed square, its counterexample. */
   problem: { message: string; counterexample?: unknown } | null;
+  /** A map taken from the atlas without editable parameters: its kind and main parameter in words (atlasMapText). */
+  atlasText?: string;
 };
 
 export type Workbench = {
@@ -55,7 +57,7 @@ export type WbAction =
   | { type: "positions"; positions: Record<string, { x: number; y: number }> }
   | { type: "chain-name"; name: string }
   /** A certified map of the atlas dropped in: its ends resolved against the canvas as it is when applied. */
-  | { type: "add-atlas-map"; map: { id: string; certificateAddress: string | null; spec: MapSpec | null }; source: AtlasEnd; target: AtlasEnd; ids: { source: string; target: string; edge: string } }
+  | { type: "add-atlas-map"; map: { id: string; certificateAddress: string | null; spec: MapSpec | null; text?: string }; source: AtlasEnd; target: AtlasEnd; ids: { source: string; target: string; edge: string } }
   /** Server answers: applied to the present, not undoable (undo must not un-certify what the atlas holds). */
   | { type: "edge-result"; id: string; patch: Partial<Pick<WbEdge, "state" | "mapId" | "certificateAddress" | "problem">> }
   | { type: "node-result"; id: string; patch: Partial<Pick<WbNode, "model" | "modelId" | "name">> }
@@ -101,7 +103,17 @@ function addAtlasMap(w: Workbench, a: Extract<WbAction, { type: "add-atlas-map" 
   if (w.edges.some((e) => e.source === source.id && e.mapId === a.map.id)) return w;
   const free = withSource.nodes.find((n) => n.modelId === a.target.modelId && n.id !== source.id && !w.edges.some((e) => e.target === n.id));
   const target = free ?? fresh(a.target, a.ids.target, placeNew(withSource, source.id));
-  const edge: WbEdge = { id: a.ids.edge, source: source.id, target: target.id, spec: a.map.spec, state: "certified", mapId: a.map.id, certificateAddress: a.map.certificateAddress, problem: null };
+  const edge: WbEdge = {
+    id: a.ids.edge,
+    source: source.id,
+    target: target.id,
+    spec: a.map.spec,
+    state: "certified",
+    mapId: a.map.id,
+    certificateAddress: a.map.certificateAddress,
+    problem: null,
+    ...(a.map.text ? { atlasText: a.map.text } : {}),
+  };
   return {
     ...withSource,
     nodes: free ? withSource.nodes : [...withSource.nodes, target],

@@ -1,11 +1,12 @@
 import "server-only";
-import { and, asc, desc, eq, gt, or, sql, type SQL } from "drizzle-orm";
+import { and, asc, count, desc, eq, gt, inArray, not, or, sql, type SQL } from "drizzle-orm";
 import { alias } from "drizzle-orm/sqlite-core";
 import { certificates, maps, models, searchRecords, type Model, type SearchRecord } from "@/db/schema";
 import { type Executor, getDatabase, withDb } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
 import type { MapKind, MapView } from "./maps";
 import { afterModelCursor, modelCursor, modelOrder, type ModelKind } from "./models";
+import { CONSTANT_ECA_RULES, type ConstantTargets } from "./workspaces";
 
 export type AtlasSearch = {
   db?: Executor;
@@ -21,6 +22,11 @@ export type AtlasSearch = {
   mapKind?: MapKind;
   modelKind?: ModelKind;
   includeRetracted?: boolean;
+  /**
+   * Maps onto a constant ECA (0, 255), which nearly every rule coarse-grains onto: kept (default),
+   * left out (and counted, for a "show them" line), or the only ones listed.
+   */
+  constantTargets?: ConstantTargets;
   limit?: number;
   cursor?: string | null;
 };
@@ -31,7 +37,13 @@ export type AtlasSearchResult =
    * Each map with its projection or partition as JSON text, so that a list can show what the map is,
    * and the source's state labels as JSON text (a chain's), to name the partition's states.
    */
-  | { target: "maps"; items: (MapView & { definition: string | null; sourceLabels: string | null })[]; nextCursor: string | null };
+  | {
+      target: "maps";
+      items: (MapView & { definition: string | null; sourceLabels: string | null })[];
+      nextCursor: string | null;
+      /** With `constantTargets: "exclude"`: how many maps matching the other filters go onto a constant ECA. */
+      constantFolded?: number;
+    };
 
 function likeEscaped(column: SQL, text: string): SQL {
   const pattern = `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
@@ -180,17 +192,19 @@ async function searchMaps({
   mapKind,
   modelKind,
   includeRetracted = false,
+  constantTargets = "include",
   limit = 50,
   cursor,
 }: AtlasSearch): Promise<AtlasSearchResult> {
   return withDb("searching maps", async () => {
+    const folding = constantTargets === "exclude";
     const short = q ? shortTerm(q) : null;
     const candidates = short
       ? await wordCandidates(db, workspaceId, short)
       : q && !q.startsWith("sha256:")
         ? await trigramCandidates(db, workspaceId, q)
         : null;
-    if (candidates && candidates.length === 0) return { target: "maps", items: [], nextCursor: null };
+    if (candidates && candidates.length === 0) return { target: "maps", items: [], nextCursor: null, ...(folding && { constantFolded: 0 }) };
     const c: SQL[] = [eq(maps.workspaceId, workspaceId)];
     if (!includeRetracted) c.push(eq(maps.status, "certified"));
     // One JSON parameter rather than thousands of placeholders: the statement is prepared per request.
@@ -212,6 +226,9 @@ async function searchMaps({
     if (block !== undefined) c.push(eq(maps.block, block));
     if (mapKind) c.push(eq(maps.kind, mapKind));
     if (modelKind) c.push(eq(source.kind, modelKind));
+    const constantFolded = folding ? await countOntoConstant(db, c) : undefined;
+    if (folding) c.push(not(ontoConstant()));
+    if (constantTargets === "only") c.push(ontoConstant());
     if (cursor) c.push(gt(maps.id, String(decodeCursor(cursor, 1)[0])));
     const rows = await db
       .select({
@@ -231,8 +248,21 @@ async function searchMaps({
       .all();
     const items = rows.slice(0, limit).map((r) => ({ ...r.map, source: r.source, target: r.target, definition: r.definition, sourceLabels: r.sourceLabels }));
     const last = items[items.length - 1];
-    return { target: "maps", items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null };
+    return { target: "maps", items, nextCursor: rows.length > limit && last ? encodeCursor([last.id]) : null, ...(constantFolded !== undefined && { constantFolded }) };
   });
+}
+
+const ontoConstant = () => and(eq(target.kind, "eca"), inArray(target.rule, CONSTANT_ECA_RULES))!;
+
+/** How many maps meeting the conditions `c` (over maps, source and target) go onto a constant ECA. */
+async function countOntoConstant(db: Executor, c: SQL[]): Promise<number> {
+  const [row] = await db
+    .select({ n: count() })
+    .from(maps)
+    .innerJoin(source, eq(source.id, maps.sourceModelId))
+    .innerJoin(target, eq(target.id, maps.targetModelId))
+    .where(and(...c, ontoConstant()));
+  return row?.n ?? 0;
 }
 
 /** The hierarchy of one model class: its models grouped by symmetry class, and the maps among them. */

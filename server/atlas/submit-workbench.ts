@@ -28,7 +28,7 @@ export type MapOutcome =
 
 export type ChainOutcome =
   | { status: "created" | "existing"; chainId: string; address: string; verification: "links" | "links+composite" }
-  | { status: "too-large" | "refused" | "not-stored"; message: string; link?: number | null };
+  | { status: "too-large" | "refused" | "not-stored"; message: string; link?: number | null; counterexample?: unknown };
 
 export type WorkbenchResult = {
   models: { key: string; id: string; name: string; model: CanonicalModel }[];
@@ -254,7 +254,7 @@ async function checkChain(
     if (isAppError(e) && e.code === "too_large") return { status: "too-large", message: e.message };
     throw e;
   }
-  if (outcome.status === "broken-chain") return { status: "refused", message: outcome.reason, link: outcome.link >= 0 ? outcome.link : null };
+  if (outcome.status === "broken-chain") return { status: "refused", message: outcome.reason, link: outcome.link >= 0 ? outcome.link : null, counterexample: outcome.counterexample };
   if (outcome.status !== "chain") throw new AppError("internal", "The verification worker answered a different question.");
   const c = outcome.composite;
   return {

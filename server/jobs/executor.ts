@@ -107,7 +107,7 @@ export function createJobExecutor(options: JobExecutorOptions): JobExecutor {
       await runKind(entry, kind, parsed.data, finish);
     } catch (err) {
       if (!isAppError(err)) console.error(`job ${job.id} (${job.kind}) failed:`, err);
-      await finish({ status: "failed", error: publicMessage(err) }).catch(() => undefined);
+      await finish({ status: "failed", error: publicMessage(err), result: failureDetails(err) }).catch(() => undefined);
     }
   }
 
@@ -205,6 +205,15 @@ function progressWriter(db: Database, id: string, owner: string) {
       await chain;
     },
   };
+}
+
+/**
+ * What a failed check found, kept as the job's result so that its page can draw it: a kind that throws
+ * an AppError whose details carry a counterexample (verify-chain) keeps those details; others keep none.
+ */
+function failureDetails(err: unknown): unknown {
+  if (!isAppError(err) || !err.details || typeof err.details !== "object") return undefined;
+  return "counterexample" in err.details && err.details.counterexample ? err.details : undefined;
 }
 
 function publicMessage(err: unknown): string {

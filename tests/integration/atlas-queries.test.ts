@@ -150,6 +150,22 @@ describe("reading and retracting maps", () => {
     expect(percent.items).toHaveLength(0);
   });
 
+  it("folds the maps onto the constant rules (ECA 0, ECA 255) out of a maps list and counts them, or lists only them", async () => {
+    const made = new Map<number, string>();
+    for (const to of [0, 51, 255, 204]) made.set(to, (await createCertifiedEdge(edgeInput(ws, people.contributor.id, 77, to, 3))).mapId);
+    const all = await searchAtlas({ workspaceId: ws, target: "maps", rule: 77 });
+    expect(all.items.map((m) => m.id).sort()).toEqual([...made.values()].sort());
+    expect("constantFolded" in all).toBe(false);
+    const folded = await searchAtlas({ workspaceId: ws, target: "maps", rule: 77, constantTargets: "exclude" });
+    expect(folded.items.map((m) => m.id).sort()).toEqual([made.get(51), made.get(204)].sort());
+    expect(folded.target === "maps" && folded.constantFolded).toBe(2);
+    const only = await searchAtlas({ workspaceId: ws, target: "maps", rule: 77, constantTargets: "only" });
+    expect(only.items.map((m) => m.id).sort()).toEqual([made.get(0), made.get(255)].sort());
+    // The count follows the other filters: a text that matches none of rule 77's maps counts none.
+    const none = await searchAtlas({ workspaceId: ws, target: "maps", rule: 77, q: "no such summary", constantTargets: "exclude" });
+    expect(none.target === "maps" && none.constantFolded).toBe(0);
+  });
+
   it("lists each map with its projection as the certificate states it, so the list can show what the map is", async () => {
     const input = edgeInput(ws, people.contributor.id, 150, 105);
     const body = JSON.stringify({ map: { block: 2, projection: [0, 1, 1, 0] } });

@@ -92,4 +92,32 @@ describe("the verify-chain job", () => {
     expect(done.error).toMatch(/^link 1 ends at .*, but link 2 starts at /);
     expect({ maps: (await t.db.select().from(maps)).length, chains: (await t.db.select().from(chains)).length }).toEqual(before);
   });
+  it("fails a link that is not lumpable with the checker's counterexample kept as the job's result, and stores nothing", async () => {
+    const lumping = built(certifyLumping({ chain, partition: [0, 0, 1, 1] }));
+    // The same claim with the blocks {a,c},{b,d}: not lumpable. By hand from the matrix above, the rows of a and c
+    // put 5/8 and 1/2 on {a,c}, and 3/8 and 1/2 on {b,d}. Its address (a hash of the old content) is left off.
+    const { address: _old, ...claim } = lumping as Certificate & { address?: string };
+    const tampered = { ...claim, map: { ...lumping.map, partition: [0, 1, 0, 1] } } as Certificate;
+    const decimation = built(certifyDecimation({ chain: lumping.target, steps: 2 }));
+    const before = { maps: (await t.db.select().from(maps)).length, chains: (await t.db.select().from(chains)).length };
+    const job = await queue.enqueue({
+      workspaceId: ws,
+      ownerId: people.contributor.id,
+      kind: "verify-chain",
+      params: { name: "not lumpable", certificates: [tampered, decimation] },
+    });
+    await runner.drain();
+    const done = (await queue.get({ jobId: job.id, workspaceId: ws }))!;
+    expect(done.status).toBe("failed");
+    expect(done.error).toMatch(/^link 1 does not verify/);
+    const result = done.result as { link: number; counterexample: { kind: string; targetBlock: number; sums: string[] } };
+    expect(result.link).toBe(0);
+    expect(result.counterexample.kind).toMatch(/lumpable/);
+    const byHand = [
+      ["5/8", "1/2"],
+      ["3/8", "1/2"],
+    ][result.counterexample.targetBlock];
+    expect([...result.counterexample.sums].sort()).toEqual([...byHand].sort());
+    expect({ maps: (await t.db.select().from(maps)).length, chains: (await t.db.select().from(chains)).length }).toEqual(before);
+  });
 });

@@ -33,6 +33,7 @@ export const DraftCanvas = z
           mapId: Id.nullable(),
           certificateAddress: Text(100).nullable(),
           problem: z.object({ message: Text(2000), counterexample: z.unknown().optional() }).nullable(),
+          atlasText: Text(200).optional(),
         }),
       )
       .max(1000, "A draft holds at most 1000 maps."),

@@ -30,7 +30,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
         <JobLive initial={job} canCancel={canCancel} />
       </Panel>
       <Panel title="Details">
-        <dl className="grid grid-cols-[max-content_1fr] gap-x-6 gap-y-1 text-sm">
+        <dl className="grid grid-cols-[max-content_minmax(0,1fr)] gap-x-6 gap-y-1 text-sm">
           <dt className="text-ink-faint">Job</dt>
           <dd className="font-mono text-xs">{job.id}</dd>
           <dt className="text-ink-faint">Queued</dt>
@@ -41,7 +41,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
           <dd>{job.attempts}</dd>
           <dt className="text-ink-faint">Parameters</dt>
           <dd>
-            <pre className="overflow-auto font-mono text-xs">{JSON.stringify(job.params, null, 2)}</pre>
+            <pre className="max-h-96 overflow-auto font-mono text-xs">{JSON.stringify(job.params, null, 2)}</pre>
           </dd>
         </dl>
       </Panel>

@@ -90,6 +90,7 @@ export const WorkbenchOut = z
         verification: z.enum(["links", "links+composite"]).optional(),
         message: z.string().optional(),
         link: z.number().nullable().optional(),
+        counterexample: z.unknown().optional().meta({ description: "For a refused chain: the checker's counterexample at the failing link or composite." }),
       })
       .nullable(),
   })
