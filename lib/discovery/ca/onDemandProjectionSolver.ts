@@ -10,6 +10,7 @@
  * far, instead of the whole table; a complete assignment meets every window exactly once on its path.
  */
 import type { RuleTable } from "@/lib/ca";
+import { SlicedWindowCheck } from "./slicedWindowCheck";
 import { MAX_WIDE_STATES, type WideProjectionClass } from "./wideProjectionSolver";
 
 /** Widest window (in cells) and light cone (in cells) the on-demand search handles; beyond them the table solver is used. */
@@ -98,6 +99,8 @@ class OnDemandSearch {
   private readonly cone: LightCone;
   private readonly coneShift: Int32Array;
   private readonly coneMask: number;
+  /** the flat pass 32 windows at a time, where the sizes line up */
+  private readonly sliced: SlicedWindowCheck | null;
   private current = 0;
 
   constructor(
@@ -120,6 +123,7 @@ class OnDemandSearch {
     // output cell j of the centre block is window cell RN + j; its cone ends rT cells to its right
     this.coneShift = Int32Array.from({ length: block }, (_, j) => cells - 1 - (R * block + j + t.r * steps));
     this.coneMask = 2 ** (2 * t.r * steps + 1) - 1;
+    this.sliced = SlicedWindowCheck.applies(block, this.width, this.coneMask) ? new SlicedWindowCheck(this.cone, block, this.width, this.coneShift, this.coneMask) : null;
   }
 
   /** The centre block after T steps of window w (blocks as N-bit digits, leftmost most significant). */
@@ -219,6 +223,7 @@ class OnDemandSearch {
     const mask = n - 1;
     const windows = 2 ** (width * block);
     if (!this.checkSample(Math.min(windows / 8, CHECK_SAMPLE))) return false;
+    if (this.sliced) return this.sliced.check(p, g, trail, G_SET);
     const first = coneShift[0];
     for (let high = 0; high < windows; high += n) {
       let prefix = 0;
