@@ -33,15 +33,18 @@ export function onDemandApplies(t: RuleTable, block: number, steps: number): boo
 class LightCone {
   /** level T, −1 where not yet computed */
   readonly top: Int8Array;
-  private readonly below: Uint8Array;
+  /** level T − 1 (for T = 1, the rule itself) */
+  readonly below: Uint8Array;
   private readonly belowMask: number;
-  private readonly span: number;
+  readonly span: number;
+  readonly rule: Uint8Array;
 
   constructor(
     private readonly t: RuleTable,
     steps: number,
   ) {
     this.span = 2 * t.r + 1;
+    this.rule = t.table;
     let level: Uint8Array = Uint8Array.from(t.table);
     for (let s = 2; s < steps; s++) level = this.nextLevel(level, s);
     this.below = level;

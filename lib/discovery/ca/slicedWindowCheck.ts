@@ -12,6 +12,11 @@
 /** The T-step light cone as the search keeps it: level T filled on demand (−1 where not yet computed). */
 export interface ConeTable {
   readonly top: Int8Array;
+  /** level T − 1, whole */
+  readonly below: Uint8Array;
+  /** the fine rule's table and its window (2r + 1 cells) */
+  readonly rule: Uint8Array;
+  readonly span: number;
   fill(pattern: number): number;
 }
 
@@ -26,6 +31,62 @@ const SPREAD: Int32Array[] = Array.from({ length: 5 }, (_, s) =>
     return word;
   }),
 );
+
+/**
+ * Bit (w >>> s) & mask of `bits` for the 32 values w0 … w0 + 31 (w0 a multiple of 32, mask + 1 ≥ 32), as a word:
+ * a run of 32 >>> s consecutive bits, each repeated 2^s times.
+ */
+function runWord(bits: Int32Array, mask: number, w0: number, s: number): number {
+  const start = (w0 >>> s) & mask;
+  const word = bits[start >>> 5];
+  if (s === 0) return word;
+  if (s >= 5) return -((word >>> (start & 31)) & 1);
+  const run = (word >>> (start & 31)) & ((1 << (WORD >>> s)) - 1);
+  if (s === 1) return SPREAD[1][run & 255] | (SPREAD[1][run >>> 8] << 16);
+  return SPREAD[s][run];
+}
+
+/**
+ * The boolean function with truth table `table` (constant words, 0 or −1; index bits from `inputs[0]`, most
+ * significant) applied bitwise to the words `inputs[0 … count − 1]`: a mux tree, least significant input first,
+ * with `scratch` (half the table's length at least) for the levels above the first.
+ */
+function muxTree(inputs: Int32Array, count: number, table: Int32Array, scratch: Int32Array): number {
+  let d = inputs[count - 1];
+  let len = table.length >>> 1;
+  for (let k = 0; k < len; k++) scratch[k] = (d & table[2 * k + 1]) | (~d & table[2 * k]);
+  for (let j = count - 2; j >= 0; j--) {
+    d = inputs[j];
+    len >>>= 1;
+    for (let k = 0; k < len; k++) scratch[k] = (d & scratch[2 * k + 1]) | (~d & scratch[2 * k]);
+  }
+  return scratch[0];
+}
+
+/** A table of 0/1 entries (length a multiple of 32) packed as bits, entry i at bit i & 31 of word i >>> 5. */
+function packBits(table: ArrayLike<number>): Int32Array {
+  const bits = new Int32Array(table.length / WORD);
+  for (let i = 0; i < table.length; i++) if (table[i]) bits[i >>> 5] |= 1 << (i & 31);
+  return bits;
+}
+
+/**
+ * Level T of the cone as bits from level T − 1, 32 patterns per word: the 2r + 1 overlapping level-(T − 1)
+ * patterns of 32 consecutive level-T patterns are runs of the lower table, and the rule is a mux tree over them.
+ */
+function nextLevelBits(below: Uint8Array, rule: Uint8Array, span: number, size: number): Int32Array {
+  const lower = packBits(below);
+  const mask = below.length - 1;
+  const ruleWords = Int32Array.from(rule, (v) => -v);
+  const scratch = new Int32Array(ruleWords.length);
+  const inputs = new Int32Array(span);
+  const bits = new Int32Array(size / WORD);
+  for (let q = 0; q < bits.length; q++) {
+    for (let d = 0; d < span; d++) inputs[d] = runWord(lower, mask, q * WORD, span - 1 - d);
+    bits[q] = muxTree(inputs, span, ruleWords, scratch);
+  }
+  return bits;
+}
 
 export class SlicedWindowCheck {
   /** level T of the cone as bits, built once the first complete assignment reaches the flat pass */
@@ -55,36 +116,33 @@ export class SlicedWindowCheck {
 
   private bits(): Int32Array {
     if (this.topBits) return this.topBits;
-    const { top } = this.cone;
-    const bits = new Int32Array((this.coneMask + 1) / WORD);
-    for (let i = 0; i <= this.coneMask; i++) {
-      const cell = top[i] >= 0 ? top[i] : this.cone.fill(i);
-      if (cell) bits[i >>> 5] |= 1 << (i & 31);
-    }
-    return (this.topBits = bits);
+    const { top, below, rule, span } = this.cone;
+    const size = this.coneMask + 1;
+    if (below.length >= WORD && size === below.length * 2 ** (span - 1)) return (this.topBits = nextLevelBits(below, rule, span, size));
+    return (this.topBits = packBits(Int8Array.from(top, (cell, i) => (cell >= 0 ? cell : this.cone.fill(i)))));
   }
 
-  /** Output cell j across the 32 windows from w0 (a multiple of 32), as a word. */
-  private cellWord(bits: Int32Array, w0: number, s: number): number {
-    const start = (w0 >>> s) & this.coneMask;
-    const word = bits[start >>> 5];
-    if (s === 0) return word;
-    if (s >= 5) return -((word >>> (start & 31)) & 1);
-    const run = (word >>> (start & 31)) & ((1 << (WORD >>> s)) - 1);
-    if (s === 1) return SPREAD[1][run & 255] | (SPREAD[1][run >>> 8] << 16);
-    return SPREAD[s][run];
-  }
-
-  /** The projection of the image block across the 32 windows from w0: a mux tree over the cell words. */
+  /** The projection of the image block across the 32 windows from w0: a mux tree over the output cell words. */
   private projectedImages(bits: Int32Array, w0: number, pWords: Int32Array): number {
-    const { block, cells, values, coneShift } = this;
-    for (let j = 0; j < block; j++) cells[j] = this.cellWord(bits, w0, coneShift[j]);
-    values.set(pWords);
-    for (let j = block - 1, len = this.n; j >= 0; j--, len >>>= 1) {
-      const d = cells[j];
-      for (let k = 0; k < len >>> 1; k++) values[k] = (d & values[2 * k + 1]) | (~d & values[2 * k]);
+    const { block, cells, values, coneShift, coneMask } = this;
+    for (let j = 0; j < block; j++) cells[j] = runWord(bits, coneMask, w0, coneShift[j]);
+    return muxTree(cells, block, pWords, values);
+  }
+
+  /**
+   * The windows of coarse window c: `part` holds their projected images among the windows `m` of the word's
+   * group; they must agree with each other and with g[c] (set here if unset).
+   */
+  private settle(g: Int8Array, trail: number[], gSetKind: number, c: number, part: number, m: number): boolean {
+    if (m === 0) return true;
+    const value = part === 0 ? 0 : part === m ? 1 : -1;
+    if (value < 0) return false;
+    if (g[c] < 0) {
+      g[c] = value;
+      trail.push(gSetKind, c);
+      return true;
     }
-    return values[0];
+    return g[c] === value;
   }
 
   /**
@@ -100,25 +158,21 @@ export class SlicedWindowCheck {
     const segMask = (1 << n) - 1;
     const stateMask = n - 1;
     const windows = 2 ** (width * block);
+    const [m0, m1] = xMask;
+    let upperOf = -1;
+    let upper = 0;
     for (let w0 = 0; w0 < windows; w0 += WORD) {
       const images = this.projectedImages(bits, w0, pWords);
       for (let h = 0; h < groups; h++) {
         const high = (w0 >>> block) + h;
-        let prefix = 0;
-        for (let shift = (width - 2) * block; shift >= 0; shift -= block) prefix = (prefix << 1) | p[(high >>> shift) & stateMask];
-        const segment = (images >>> (h * n)) & segMask;
-        for (let b = 0; b < 2; b++) {
-          const m = xMask[b];
-          if (m === 0) continue;
-          const part = segment & m;
-          const value = part === 0 ? 0 : part === m ? 1 : -1;
-          if (value < 0) return false;
-          const c = (prefix << 1) | b;
-          if (g[c] < 0) {
-            g[c] = value;
-            trail.push(gSetKind, c);
-          } else if (g[c] !== value) return false;
+        if (high >>> block !== upperOf) {
+          upperOf = high >>> block;
+          upper = 0;
+          for (let shift = (width - 3) * block; shift >= 0; shift -= block) upper = (upper << 1) | p[(upperOf >>> shift) & stateMask];
         }
+        const prefix = ((upper << 1) | p[high & stateMask]) << 1;
+        const segment = (images >>> (h * n)) & segMask;
+        if (!this.settle(g, trail, gSetKind, prefix, segment & m0, m0) || !this.settle(g, trail, gSetKind, prefix | 1, segment & m1, m1)) return false;
       }
     }
     return true;
