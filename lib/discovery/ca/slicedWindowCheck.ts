@@ -21,6 +21,7 @@ export interface ConeTable {
 }
 
 const WORD = 32;
+const WORD_STRIDE = 0x2d5;
 
 /** spread[s][b]: each of the 8 bits of byte b repeated 2^s times (bits beyond 32 dropped). */
 const SPREAD: Int32Array[] = Array.from({ length: 5 }, (_, s) =>
@@ -161,7 +162,10 @@ export class SlicedWindowCheck {
     const [m0, m1] = xMask;
     let upperOf = -1;
     let upper = 0;
-    for (let w0 = 0; w0 < windows; w0 += WORD) {
+    const words = windows / WORD;
+    for (let q = 0; q < words; q++) {
+      // an odd stride spreads the words: a near miss's conflicts sit together in counting order (they share blocks)
+      const w0 = (Math.imul(q, WORD_STRIDE) & (words - 1)) * WORD;
       const images = this.projectedImages(bits, w0, pWords);
       for (let h = 0; h < groups; h++) {
         const high = (w0 >>> block) + h;
