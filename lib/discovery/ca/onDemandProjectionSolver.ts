@@ -84,6 +84,12 @@ const PROCESSED = 3;
 
 class StopOnDemand extends Error {}
 
+function emptyLists(count: number): number[][] {
+  const lists: number[][] = [];
+  for (let i = 0; i < count; i++) lists.push([]);
+  return lists;
+}
+
 class OnDemandSearch {
   readonly n: number;
   readonly width: number;
@@ -118,13 +124,15 @@ class OnDemandSearch {
     this.p = new Int8Array(this.n).fill(-1);
     this.g = new Int8Array(2 ** this.width).fill(-1);
     this.processed = new Int32Array(this.n);
-    this.waitG = Array.from({ length: this.g.length }, () => []);
-    this.waitP = Array.from({ length: this.n }, () => []);
+    // plain loops: Array.from over an array-like with a map function is slow for a search that runs in microseconds
+    this.waitG = emptyLists(this.g.length);
+    this.waitP = emptyLists(this.n);
     this.waitMask = new Int32Array(this.g.length);
     this.cone = new LightCone(t, steps);
     const cells = this.width * block;
     // output cell j of the centre block is window cell RN + j; its cone ends rT cells to its right
-    this.coneShift = Int32Array.from({ length: block }, (_, j) => cells - 1 - (R * block + j + t.r * steps));
+    this.coneShift = new Int32Array(block);
+    for (let j = 0; j < block; j++) this.coneShift[j] = cells - 1 - (R * block + j + t.r * steps);
     this.coneMask = 2 ** (2 * t.r * steps + 1) - 1;
     this.sliced = SlicedWindowCheck.applies(block, this.width, this.coneMask) ? new SlicedWindowCheck(this.cone, block, this.width, this.coneShift, this.coneMask) : null;
   }

@@ -78,7 +78,8 @@ function packBits(table: ArrayLike<number>): Int32Array {
 function nextLevelBits(below: Uint8Array, rule: Uint8Array, span: number, size: number): Int32Array {
   const lower = packBits(below);
   const mask = below.length - 1;
-  const ruleWords = Int32Array.from(rule, (v) => -v);
+  const ruleWords = new Int32Array(rule.length);
+  for (let i = 0; i < rule.length; i++) ruleWords[i] = -rule[i];
   const scratch = new Int32Array(ruleWords.length);
   const inputs = new Int32Array(span);
   const bits = new Int32Array(size / WORD);
@@ -153,7 +154,8 @@ export class SlicedWindowCheck {
   check(p: Int8Array, g: Int8Array, trail: number[], gSetKind: number): boolean {
     const { n, block, width, groups } = this;
     const bits = this.bits();
-    const pWords = Int32Array.from(p, (v) => -v);
+    const pWords = new Int32Array(n);
+    for (let x = 0; x < n; x++) pWords[x] = -p[x];
     const xMask = [0, 0];
     for (let x = 0; x < n; x++) xMask[p[x]] |= 1 << x;
     const segMask = (1 << n) - 1;
