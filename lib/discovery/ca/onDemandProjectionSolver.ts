@@ -225,7 +225,8 @@ class OnDemandSearch {
   /**
    * Every window against a complete assignment, in one flat pass: once p is known the search has nothing left to
    * branch on, and a plain loop checks the windows no processed state has reached far faster than the
-   * propagation's enumeration would.
+   * propagation's enumeration would. After the spread sample, where the sizes line up, the loop is bit-sliced
+   * (slicedWindowCheck.ts: 32 windows per word, the cone's level T rebuilt whole as bits once per search).
    */
   checkAll(): boolean {
     const { p, g, block, width, trail, cone, coneShift, coneMask } = this;
