@@ -10,6 +10,7 @@
  * far, instead of the whole table; a complete assignment meets every window exactly once on its path.
  */
 import type { RuleTable } from "@/lib/ca";
+import { SlicedWindowCheck } from "./slicedWindowCheck";
 import { MAX_WIDE_STATES, type WideProjectionClass } from "./wideProjectionSolver";
 
 /** Widest window (in cells) and light cone (in cells) the on-demand search handles; beyond them the table solver is used. */
@@ -32,15 +33,18 @@ export function onDemandApplies(t: RuleTable, block: number, steps: number): boo
 class LightCone {
   /** level T, −1 where not yet computed */
   readonly top: Int8Array;
-  private readonly below: Uint8Array;
+  /** level T − 1 (for T = 1, the rule itself) */
+  readonly below: Uint8Array;
   private readonly belowMask: number;
-  private readonly span: number;
+  readonly span: number;
+  readonly rule: Uint8Array;
 
   constructor(
     private readonly t: RuleTable,
     steps: number,
   ) {
     this.span = 2 * t.r + 1;
+    this.rule = t.table;
     let level: Uint8Array = Uint8Array.from(t.table);
     for (let s = 2; s < steps; s++) level = this.nextLevel(level, s);
     this.below = level;
@@ -80,6 +84,12 @@ const PROCESSED = 3;
 
 class StopOnDemand extends Error {}
 
+function emptyLists(count: number): number[][] {
+  const lists: number[][] = [];
+  for (let i = 0; i < count; i++) lists.push([]);
+  return lists;
+}
+
 class OnDemandSearch {
   readonly n: number;
   readonly width: number;
@@ -98,6 +108,8 @@ class OnDemandSearch {
   private readonly cone: LightCone;
   private readonly coneShift: Int32Array;
   private readonly coneMask: number;
+  /** the flat pass 32 windows at a time, where the sizes line up */
+  private readonly sliced: SlicedWindowCheck | null;
   private current = 0;
 
   constructor(
@@ -112,14 +124,17 @@ class OnDemandSearch {
     this.p = new Int8Array(this.n).fill(-1);
     this.g = new Int8Array(2 ** this.width).fill(-1);
     this.processed = new Int32Array(this.n);
-    this.waitG = Array.from({ length: this.g.length }, () => []);
-    this.waitP = Array.from({ length: this.n }, () => []);
+    // plain loops: Array.from over an array-like with a map function is slow for a search that runs in microseconds
+    this.waitG = emptyLists(this.g.length);
+    this.waitP = emptyLists(this.n);
     this.waitMask = new Int32Array(this.g.length);
     this.cone = new LightCone(t, steps);
     const cells = this.width * block;
     // output cell j of the centre block is window cell RN + j; its cone ends rT cells to its right
-    this.coneShift = Int32Array.from({ length: block }, (_, j) => cells - 1 - (R * block + j + t.r * steps));
+    this.coneShift = new Int32Array(block);
+    for (let j = 0; j < block; j++) this.coneShift[j] = cells - 1 - (R * block + j + t.r * steps);
     this.coneMask = 2 ** (2 * t.r * steps + 1) - 1;
+    this.sliced = SlicedWindowCheck.applies(block, this.width, this.coneMask) ? new SlicedWindowCheck(this.cone, block, this.width, this.coneShift, this.coneMask) : null;
   }
 
   /** The centre block after T steps of window w (blocks as N-bit digits, leftmost most significant). */
@@ -210,7 +225,8 @@ class OnDemandSearch {
   /**
    * Every window against a complete assignment, in one flat pass: once p is known the search has nothing left to
    * branch on, and a plain loop checks the windows no processed state has reached far faster than the
-   * propagation's enumeration would.
+   * propagation's enumeration would. After the spread sample, where the sizes line up, the loop is bit-sliced
+   * (slicedWindowCheck.ts: 32 windows per word, the cone's level T rebuilt whole as bits once per search).
    */
   checkAll(): boolean {
     const { p, g, block, width, trail, cone, coneShift, coneMask } = this;
@@ -219,6 +235,7 @@ class OnDemandSearch {
     const mask = n - 1;
     const windows = 2 ** (width * block);
     if (!this.checkSample(Math.min(windows / 8, CHECK_SAMPLE))) return false;
+    if (this.sliced) return this.sliced.check(p, g, trail, G_SET);
     const first = coneShift[0];
     for (let high = 0; high < windows; high += n) {
       let prefix = 0;

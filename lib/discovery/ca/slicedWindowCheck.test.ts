@@ -1,0 +1,92 @@
+import { describe, expect, it } from "vitest";
+import { SlicedWindowCheck, type ConeTable } from "./slicedWindowCheck";
+
+function seeded(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = Math.imul(a ^ (a >>> 15), a | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** The centre cell after `steps` applications of the rule to a row of cells (leftmost first), applied cell by cell. */
+function evolveCentre(rule: Uint8Array, r: number, cells: number[], steps: number): number {
+  let row = cells;
+  for (let s = 0; s < steps; s++) {
+    const next: number[] = [];
+    for (let i = 0; i + 2 * r < row.length; i++) {
+      let idx = 0;
+      for (let d = 0; d <= 2 * r; d++) idx = idx * 2 + row[i + d];
+      next.push(rule[idx]);
+    }
+    row = next;
+  }
+  return row[0];
+}
+
+function digits(x: number, count: number): number[] {
+  return Array.from({ length: count }, (_, i) => (x >>> (count - 1 - i)) & 1);
+}
+
+/** Level `steps` of the light cone, whole or (half of it, at random) left to be filled on demand. */
+function cone(rule: Uint8Array, r: number, steps: number, random: () => number): ConeTable {
+  const level = (s: number) => Uint8Array.from({ length: 2 ** (2 * r * s + 1) }, (_, x) => evolveCentre(rule, r, digits(x, 2 * r * s + 1), s));
+  const full = level(steps);
+  const top = Int8Array.from(full, (v) => (random() < 0.5 ? v : -1));
+  return { top, below: steps > 1 ? level(steps - 1) : rule, rule, span: 2 * r + 1, fill: (x) => (top[x] = full[x]) };
+}
+
+/** Plain check: each window evolved cell by cell, its image block projected, compared per coarse window. */
+function plainCheck(rule: Uint8Array, r: number, N: number, T: number, p: number[]): Map<number, number> | null {
+  const R = Math.ceil((r * T) / N);
+  const width = 2 * R + 1;
+  const g = new Map<number, number>();
+  for (let w = 0; w < 2 ** (width * N); w++) {
+    const cells = digits(w, width * N);
+    let image = 0;
+    // output cell j sits at window cell RN + j; its cone starts rT cells to its left
+    for (let j = 0; j < N; j++) image = image * 2 + evolveCentre(rule, r, cells.slice(R * N + j - r * T, R * N + j + r * T + 1), T);
+    let c = 0;
+    for (let b = 0; b < width; b++) c = c * 2 + p[(w >>> ((width - 1 - b) * N)) & (2 ** N - 1)];
+    const seen = g.get(c);
+    if (seen === undefined) g.set(c, p[image]);
+    else if (seen !== p[image]) return null;
+  }
+  return g;
+}
+
+function slicedCheck(t: ConeTable, r: number, N: number, T: number, p: number[]): Map<number, number> | null {
+  const R = Math.ceil((r * T) / N);
+  const width = 2 * R + 1;
+  const cells = width * N;
+  const coneMask = 2 ** (2 * r * T + 1) - 1;
+  const coneShift = Int32Array.from({ length: N }, (_, j) => cells - 1 - (R * N + j + r * T));
+  if (!SlicedWindowCheck.applies(N, width, coneMask)) throw new Error("sizes do not line up");
+  const g = new Int8Array(2 ** width).fill(-1);
+  const trail: number[] = [];
+  if (!new SlicedWindowCheck(t, N, width, coneShift, coneMask).check(Int8Array.from(p), g, trail, 7)) return null;
+  // the trail records exactly the bits of g it set
+  expect(trail.filter((_, i) => i % 2 === 0).every((k) => k === 7)).toBe(true);
+  expect(new Set(trail.filter((_, i) => i % 2 === 1))).toEqual(new Set([...g.keys()].filter((c) => g[c] >= 0)));
+  return new Map([...g.entries()].filter(([, v]) => v >= 0));
+}
+
+describe("bit-sliced flat check of every window", () => {
+  // (r, N, T): radius-2 at N = 2, 3 with several step counts, and radius 1 where the cone is wide enough
+  const cases: [number, number, number][] = [[2, 2, 2], [2, 2, 3], [2, 3, 3], [2, 3, 2], [1, 2, 3], [1, 3, 2], [2, 1, 1], [1, 4, 3]];
+  it.each(cases)("agrees with a plain window-by-window check (r = %i, N = %i, T = %i), on random rules and on the identity, under which the check holds", (r, N, T) => {
+    const random = seeded(1000 * r + 100 * N + T);
+    let holding = 0;
+    for (let trial = 0; trial < 12; trial++) {
+      // every 4th rule is the identity (the output is the centre cell), under which every projection holds
+      const rule = Uint8Array.from({ length: 2 ** (2 * r + 1) }, (_, i) => (trial % 4 === 0 ? (i >>> r) & 1 : random() < 0.5 ? 1 : 0));
+      const p = Array.from({ length: 2 ** N }, (_, x) => (x === 0 ? 0 : random() < 0.5 ? 1 : 0));
+      const expected = plainCheck(rule, r, N, T, p);
+      if (expected) holding++;
+      expect(slicedCheck(cone(rule, r, T, random), r, N, T, p)).toEqual(expected);
+    }
+    expect(holding).toBeGreaterThan(0);
+  }, 60_000);
+});
