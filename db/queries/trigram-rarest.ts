@@ -42,7 +42,8 @@ function windowsOf(term: string): string[] {
 
 /** `"abc"`: an FTS5 string holding the term's least common trigram (quotes doubled, FTS5 query syntax). */
 export async function rarestTrigramPhrase(db: Executor, term: string): Promise<string> {
-  const counts = await trigramCounts(db);
+  // Without counts any window still answers correctly, only more slowly.
+  const counts = await trigramCounts(db).catch(() => new Map<string, number>());
   const count = (w: string) => counts.get(w.toLowerCase()) ?? 0;
   const [rarest] = windowsOf(term).sort((a, b) => count(a) - count(b));
   return `"${rarest.replaceAll('"', '""')}"`;
