@@ -6,7 +6,9 @@
  *  - baseline: GET /api/health, a constant JSON route on the same server (no auth, no database);
  *  - a mix of the API's read endpoints (coarse-grains to/from, one map, one model, model list,
  *    search of maps and models, paths, chains, jobs, certificate schema) as the demo viewer, once
- *    with a personal API token and once with a session cookie.
+ *    with a personal API token and once with a session cookie;
+ *  - the same baseline and mix against two `next start` processes on the same database (the
+ *    deployment of `npm run demo:cluster`), the 50 connections split 25/25 across the two ports.
  * Prints requests/s, p50, p95, p99 and errors of each, and their ratios to the baseline. Target:
  * p95 < 50 ms and no errors on a quiet machine. --profile writes a V8 CPU profile of the server
  * (node --cpu-prof) and prints where its time went.
@@ -180,36 +182,48 @@ function serverCpuMs(pid: number): number {
   }
 }
 
-async function hammer(port: number, seconds: number, path: () => string, headers: Record<string, string> = {}, pid = 0): Promise<Load> {
+/** One server process under load: its port and its pid (for its CPU time). */
+type Target = { port: number; pid: number };
+
+/**
+ * Drives the targets at once for `seconds`, CONNECTIONS split evenly across them (25/25 for two),
+ * the same request mix on each; latencies are pooled and CPU time is summed over the processes.
+ */
+async function hammer(targets: Target[], seconds: number, path: () => string, headers: Record<string, string> = {}): Promise<Load> {
   const latencies: number[] = [];
   let non2xx = 0;
   const statuses = new Map<number, number>();
-  const instance = autocannon({
-    url: `http://127.0.0.1:${port}`,
-    connections: CONNECTIONS,
-    duration: seconds,
-    headers,
-    requests: [{ method: "GET", setupRequest: (req) => ({ ...req, path: path() }) }],
+  const instances = targets.map((t) => {
+    const instance = autocannon({
+      url: `http://127.0.0.1:${t.port}`,
+      connections: CONNECTIONS / targets.length,
+      duration: seconds,
+      headers,
+      requests: [{ method: "GET", setupRequest: (req) => ({ ...req, path: path() }) }],
+    });
+    instance.on("response", (_client: unknown, status: number, _bytes: number, ms: number) => {
+      latencies.push(ms);
+      if (status < 200 || status >= 300) non2xx++;
+      statuses.set(status, (statuses.get(status) ?? 0) + 1);
+    });
+    return instance;
   });
-  instance.on("response", (_client: unknown, status: number, _bytes: number, ms: number) => {
-    latencies.push(ms);
-    if (status < 200 || status >= 300) non2xx++;
-    statuses.set(status, (statuses.get(status) ?? 0) + 1);
-  });
-  const cpuBefore = serverCpuMs(pid);
-  const result = await instance;
-  const cpuMs = serverCpuMs(pid) - cpuBefore;
+  const cpuOf = () => targets.reduce((sum, t) => sum + serverCpuMs(t.pid), 0);
+  const cpuBefore = cpuOf();
+  const results = await Promise.all(instances);
+  const cpuMs = cpuOf() - cpuBefore;
   const sorted = latencies.sort((a, b) => a - b);
+  const sum = (f: (r: (typeof results)[number]) => number) => results.reduce((a, r) => a + f(r), 0);
   return {
-    rps: result.requests.average,
+    rps: sum((r) => r.requests.average),
     p50: percentile(sorted, 50),
     p95: percentile(sorted, 95),
     p99: percentile(sorted, 99),
     // autocannon counts timeouts among its errors.
-    errors: result.errors + non2xx,
+    errors: sum((r) => r.errors) + non2xx,
     total: latencies.length,
     cpuPerRequest: cpuMs / Math.max(1, latencies.length),
-    detail: `${result.timeouts} timeouts, statuses ${JSON.stringify(Object.fromEntries(statuses))}`,
+    detail: `${sum((r) => r.timeouts)} timeouts, statuses ${JSON.stringify(Object.fromEntries(statuses))}`,
   };
 }
 
@@ -261,6 +275,7 @@ export async function main(args: string[]): Promise<void> {
   const authSecret = randomBytes(24).toString("hex");
   const profileDir = profile ? join(dir, "profile") : null;
   let server: Awaited<ReturnType<typeof startServer>> | null = null;
+  let second: Awaited<ReturnType<typeof startServer>> | null = null;
   try {
     let t0 = performance.now();
     await migrateDatabase(url);
@@ -272,22 +287,43 @@ export async function main(args: string[]): Promise<void> {
     const session = await encode({ token: { sub: viewer.id, email: viewer.email, name: viewer.name }, secret: authSecret, salt: SESSION_COOKIE });
 
     server = await startServer(url, authSecret, profileDir);
+    const one: Target[] = [server];
     const mix = readMix(modelIds);
     const token = { authorization: `Bearer ${secret}` };
     const cookie = { cookie: `${SESSION_COOKIE}=${session}` };
     // Warm-up: JIT, route compilation and the page cache, for each way in.
-    await hammer(server.port, 2, () => "/api/health");
-    await hammer(server.port, 3, mix, token);
-    await hammer(server.port, 3, mix, cookie);
+    await hammer(one, 2, () => "/api/health");
+    await hammer(one, 3, mix, token);
+    await hammer(one, 3, mix, cookie);
     if (profile) console.log(`each endpoint alone (one connection, token):\n${await timeEachEndpoint(server.port, modelIds, token)}`);
-    const base = await hammer(server.port, seconds, () => "/api/health", {}, server.pid);
-    const viaToken = await hammer(server.port, seconds, mix, token, server.pid);
-    const viaSession = await hammer(server.port, seconds, mix, cookie, server.pid);
-    console.log(`load average ${loadavg().map((l) => l.toFixed(2)).join(" ")} on ${cpus().length} cores (other processes share them)`);
+    const base = await hammer(one, seconds, () => "/api/health");
+    const viaToken = await hammer(one, seconds, mix, token);
+    const viaSession = await hammer(one, seconds, mix, cookie);
+    const oneLoad = loadavg();
+
+    // The cluster deployment (npm run demo:cluster): a second `next start` on the same database file.
+    second = await startServer(url, authSecret, null);
+    const two: Target[] = [server, second];
+    await hammer([second], 2, () => "/api/health");
+    await hammer([second], 3, mix, token);
+    await hammer([second], 3, mix, cookie);
+    const twoBase = await hammer(two, seconds, () => "/api/health");
+    const twoToken = await hammer(two, seconds, mix, token);
+    const twoSession = await hammer(two, seconds, mix, cookie);
+    const twoLoad = loadavg();
+    await second.stop();
+    second = null;
+
+    const avg = (l: number[]) => l.map((x) => x.toFixed(2)).join(" ");
     console.log(`next start, demo database + ${EDGES} maps; autocannon ${CONNECTIONS} connections, ${seconds} s each; mix of 11 read endpoints`);
+    console.log(`one process: load average ${avg(oneLoad)} on ${cpus().length} cores (other processes share them)`);
     console.log(line("baseline GET /api/health (constant JSON, same server)", base, null));
     console.log(line("API reads with a token", viaToken, base));
     console.log(line("API reads with a session", viaSession, base));
+    console.log(`two processes (demo:cluster, same database, ${CONNECTIONS / 2}+${CONNECTIONS / 2} connections): load average ${avg(twoLoad)} on ${cpus().length} cores`);
+    console.log(line("[2 processes] GET /api/health (constant JSON; ratios below are to the one-process baseline)", twoBase, null));
+    console.log(line("[2 processes] API reads with a token", twoToken, base));
+    console.log(line("[2 processes] API reads with a session", twoSession, base));
     await server.stop();
     server = null;
     if (profileDir) {
@@ -295,6 +331,7 @@ export async function main(args: string[]): Promise<void> {
       console.log(file ? summariseCpuProfile(join(profileDir, file)) : "no CPU profile was written (the server did not exit in time)");
     }
   } finally {
+    await second?.stop();
     await server?.stop();
     rmSync(dir, { recursive: true, force: true });
   }

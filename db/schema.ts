@@ -107,6 +107,8 @@ export const models = sqliteTable(
     index("models_workspace_rule_idx").on(t.workspaceId, t.rule),
     // Model lists and searches page by (name, id): walked in order instead of sorting the workspace.
     index("models_workspace_name_idx").on(t.workspaceId, t.name, t.id),
+    // A name search first asks whether any description holds the term: only the described models, not a scan of all.
+    index("models_workspace_described_idx").on(t.workspaceId).where(sql`${t.description} != ''`),
     // models_workspace_order_idx, in modelOrder's own expressions, is made by drizzle/0007_read-versions-triggers.sql:
     // drizzle-kit splits an expression index at its commas.
   ],

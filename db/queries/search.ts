@@ -5,6 +5,7 @@ import { certificates, maps, models, searchRecords, type Model, type SearchRecor
 import { type Executor, getDatabase, withDb } from "./connection";
 import { decodeCursor, encodeCursor } from "./cursor";
 import type { MapKind, MapView } from "./maps";
+import { rarestTrigramPhrase } from "./trigram-rarest";
 import { afterModelCursor, modelCursor, modelOrder, type ModelKind } from "./models";
 import { CONSTANT_ECA_RULES, type ConstantTargets } from "./workspaces";
 
@@ -145,7 +146,7 @@ async function trigramCandidates(db: Executor, workspaceId: string, q: string): 
   if ([...q].length < 3 || /[\\%_]/.test(q)) return null;
   const pattern = `%${q}%`;
   return candidateMaps(db, workspaceId, {
-    summaries: sql`SELECT rowid AS r FROM maps_trigrams WHERE summary LIKE ${pattern}`,
+    summaries: sql`SELECT rowid AS r FROM maps WHERE rowid IN (SELECT rowid FROM maps_trigrams WHERE maps_trigrams MATCH ${await rarestTrigramPhrase(db, q)}) AND summary LIKE ${pattern}`,
     names: sql`SELECT rowid FROM models_trigrams WHERE name LIKE ${pattern}`,
   });
 }

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { searchAtlas, setDatabase } from "@/db/queries/atlas";
+import { forgetTrigramCounts } from "@/db/queries/trigram-rarest";
 import { createTestDatabase, type TestDatabase } from "@/tests/support/database";
 
 /**
@@ -83,6 +84,21 @@ describe("searching maps by part of a name or summary", () => {
     names.set(7, "Wombat junction");
     expect(await search("Quokka")).toEqual([]);
     expect(await search("Wombat junc", 100)).toEqual(expected("Wombat junc", 100));
+  });
+
+  it("lists the same maps when the trigram counts predate the rows (they choose the trigram, never the result)", async () => {
+    forgetTrigramCounts();
+    expect(await search("Chain 13")).toEqual(expected("Chain 13", 20));
+    // Written after the counts were read: its trigrams are unknown to them.
+    const row = { id: "e9999", ws: "lab", s: 1, t: 2, summary: 'Kiwi "loop" from Chain 1 → Chain 2' };
+    rows.push(row);
+    await t.db.$client.execute("INSERT INTO certificates (address, kind, format_version, body, checker_version, verified_at) VALUES ('sha256:ck', 'lumping', 1, '{}', 't', 0)");
+    await t.db.$client.execute({
+      sql: "INSERT INTO maps (id, workspace_id, source_model_id, target_model_id, kind, summary, certificate_address) VALUES (?, 'lab', 'm1', 'm2', 'lumping', ?, 'sha256:ck')",
+      args: [row.id, row.summary],
+    });
+    for (const q of ['kiwi "LOOP"', '"loop" from Chain 1', "Chain 1 → Chain 2"]) expect(await search(q, 100)).toEqual(expected(q, 100));
+    expect(await search('kiwi "LOOP"', 100)).toEqual(["e9999"]);
   });
 
   it("pages with a cursor through the same list", async () => {

@@ -1,0 +1,1 @@
+CREATE INDEX `models_workspace_described_idx` ON `models` (`workspace_id`) WHERE "models"."description" != '';
