@@ -151,6 +151,32 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
           {text("apart", "States to keep apart (labels, comma-separated)", "The coarsest lumping never merges these with any other state.")}
         </>
       ) : null}
+      {!advanced && kind === "totalistic-atlas" ? (
+        <>
+          <div className="grid grid-cols-2 gap-2">
+            {text("minCode", "First code (0–2186)")}
+            {text("maxCode", "Last code (0–2186)")}
+          </div>
+          {field(
+            "blocks",
+            "Block sizes",
+            <select id={`${id}-blocks`} value={fields.blocks ?? "1,2"} onChange={set("blocks")} className={inputClass}>
+              <option value="1,2">1 and 2</option>
+              <option value="1">1 (merging states)</option>
+              <option value="2">2 (partitions of the nine block states)</option>
+            </select>,
+          )}
+        </>
+      ) : null}
+      {!advanced && kind === "lump-large-chain" ? (
+        <>
+          <div className="grid grid-cols-2 gap-2">
+            {text("groups", "Groups")}
+            {text("members", "States per group")}
+          </div>
+          {text("seed", "Seed", "A generated chain of groups × members states (at most 2,000,000), ten transitions out of each; the job finds its coarsest exact lumping.")}
+        </>
+      ) : null}
       {isFormKind(kind) ? (
         <label className="flex items-center gap-2 text-xs text-ink-soft">
           <input type="checkbox" checked={advanced} onChange={(e) => toggleAdvanced(e.target.checked)} />

@@ -4,14 +4,45 @@ import { markovForm } from "./modelForms";
 export type JobFields = Record<string, string>;
 export type JobParamsResult = { params: Record<string, unknown> | null; errors: Record<string, string> };
 
-export const FORM_KINDS = ["search-projection", "eca-atlas", "lump-chain"] as const;
+export const FORM_KINDS = ["search-projection", "eca-atlas", "lump-chain", "totalistic-atlas", "lump-large-chain"] as const;
 export type FormKind = (typeof FORM_KINDS)[number];
 
 export const DEFAULT_FIELDS: Record<FormKind, JobFields> = {
   "search-projection": { rule: "110", minBlock: "2", maxBlock: "3", search: "projections" },
   "eca-atlas": { minBlock: "2", maxBlock: "3", search: "projections" },
   "lump-chain": { matrix: "", labels: "", apart: "" },
+  "totalistic-atlas": { minCode: "0", maxCode: "2186", blocks: "1,2" },
+  "lump-large-chain": { groups: "1000", members: "1000", seed: "1" },
 };
+
+/** Three-state totalistic codes run 0…3^7 − 1 (README, "Three-state totalistic rules"). */
+const TOTALISTIC_LAST_CODE = 2186;
+/** The lump-large-chain job's bound on groups × members (server/jobs/kinds/lump-large-chain.compute.ts). */
+const LARGE_CHAIN_STATES = 2_000_000;
+
+function totalisticParams(f: JobFields): JobParamsResult {
+  const errors: Record<string, string> = {};
+  const minCode = whole(f.minCode ?? "", 0, TOTALISTIC_LAST_CODE);
+  const maxCode = whole(f.maxCode ?? "", 0, TOTALISTIC_LAST_CODE);
+  if (minCode === null) errors.minCode = `A whole number from 0 to ${TOTALISTIC_LAST_CODE}.`;
+  if (maxCode === null) errors.maxCode = `A whole number from 0 to ${TOTALISTIC_LAST_CODE}.`;
+  else if (minCode !== null && maxCode < minCode) errors.maxCode = "At least the first code.";
+  const blocks = { "1": [1], "2": [2], "1,2": [1, 2] }[f.blocks ?? ""];
+  if (!blocks) errors.blocks = "Choose block 1, block 2 or both.";
+  return Object.keys(errors).length ? { params: null, errors } : { params: { minCode, maxCode, blocks }, errors };
+}
+
+function largeChainParams(f: JobFields): JobParamsResult {
+  const errors: Record<string, string> = {};
+  const groups = whole(f.groups ?? "", 1, LARGE_CHAIN_STATES);
+  const members = whole(f.members ?? "", 1, LARGE_CHAIN_STATES);
+  const seed = whole(f.seed ?? "", 0, 2 ** 31);
+  if (groups === null) errors.groups = `A whole number from 1 to ${LARGE_CHAIN_STATES.toLocaleString("en")}.`;
+  if (members === null) errors.members = `A whole number from 1 to ${LARGE_CHAIN_STATES.toLocaleString("en")}.`;
+  else if (groups !== null && groups * members > LARGE_CHAIN_STATES) errors.members = `Groups × members must be at most ${LARGE_CHAIN_STATES.toLocaleString("en")} states.`;
+  if (seed === null) errors.seed = "A whole number from 0 to 2147483648.";
+  return Object.keys(errors).length ? { params: null, errors } : { params: { chain: { generator: "permutation-mixture", groups, members, seed } }, errors };
+}
 
 function whole(text: string, min: number, max: number): number | null {
   const n = Number(text.trim());
@@ -29,6 +60,8 @@ function blocks(f: JobFields, max: number, errors: Record<string, string>) {
 
 /** Params for POST /api/jobs from a job form, checked as the person types (the server checks again). */
 export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
+  if (kind === "totalistic-atlas") return totalisticParams(f);
+  if (kind === "lump-large-chain") return largeChainParams(f);
   const errors: Record<string, string> = {};
   if (kind === "lump-chain") {
     const chain = markovForm({ matrix: f.matrix ?? "", labels: f.labels ?? "" });
