@@ -7,6 +7,7 @@ import { distinctNames } from "@/components/ui/distinctNames";
 import { listChainModels, searchChains } from "@/db/queries/chain-list";
 import { listVisibleDrafts } from "@/db/queries/drafts";
 import { getWorkspaceContext } from "@/server/context";
+import { verificationName } from "@/components/atlas/chainVerification";
 
 export const metadata: Metadata = { title: "Chains" };
 
@@ -102,7 +103,7 @@ export default async function ChainsPage({ searchParams }: Props) {
                       {c.source.name} → {c.target.name}
                     </td>
                     <td className="py-1.5 pr-3 font-mono">{c.links}</td>
-                    <td className="hidden py-1.5 pr-3 font-mono text-xs sm:table-cell">{c.verification}</td>
+                    <td className="hidden py-1.5 pr-3 text-xs sm:table-cell" title={c.verification}>{verificationName(c.verification)}</td>
                     <td className="hidden py-1.5 font-mono text-xs sm:table-cell">{c.createdAt.toISOString().slice(0, 10)}</td>
                   </tr>
                 ))}
