@@ -40,4 +40,23 @@ describe("canvasFromMaps", () => {
     const y = Object.fromEntries(w.nodes.map((n) => [n.name, n.y]));
     expect(y["ECA 128"]).toBeGreaterThan(y["ECA 146"]);
   });
+
+  it("shows a lumping's partition with the source chain's labels, and a decimation's steps and states", () => {
+    // An invented six-state chain; the partition is what its certificate states.
+    const chain = { kind: "markov" as const, labels: ["a", "b", "c", "d", "e", "f"], matrix: Array.from({ length: 6 }, (_, i) => Array.from({ length: 6 }, (_, j) => (i === j ? "1" : "0"))) };
+    const lumped = { kind: "markov" as const, labels: ["{a,b}", "{c,d}", "{e,f}"], matrix: [["1", "0", "0"], ["0", "1", "0"], ["0", "0", "1"]] };
+    const lump: AtlasMapView = {
+      id: "l",
+      kind: "lumping",
+      block: null,
+      steps: 1,
+      certificateAddress: "sha256:l",
+      source: { id: "c6", name: "Six", model: chain },
+      target: { id: "c3", name: "Three", model: lumped },
+      partition: [0, 0, 1, 1, 2, 2],
+    };
+    const decimate: AtlasMapView = { ...lump, id: "d", kind: "decimation", steps: 2, source: lump.target, target: { ...lump.target, id: "c3b" }, partition: null };
+    const w = canvasFromMaps([lump, decimate], { width: 190, height: 94 });
+    expect(w.edges.map(edgeText)).toEqual(["lumping 6 → 3: {a,b} {c,d} {e,f}", "decimation k=2, 3 states"]);
+  });
 });

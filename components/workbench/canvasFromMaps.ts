@@ -1,5 +1,5 @@
 import type { ModelInput } from "@/lib/models";
-import { atlasMapText } from "./atlasMaps";
+import { storedMapDetail, storedMapSummary } from "./mapSummary";
 import { layoutWorkbench } from "./layoutWorkbench";
 import { applyEdit, emptyWorkbench, type MapSpec, type Workbench } from "./workbenchState";
 
@@ -12,6 +12,8 @@ export type AtlasMapView = {
   certificateAddress: string;
   source: { id: string; name: string; model: ModelInput };
   target: { id: string; name: string; model: ModelInput };
+  /** A lumping's partition, read from its certificate (the map row keeps only kind and sizes). */
+  partition?: number[] | null;
 };
 
 /** The parameters the canvas can show for a stored map; the others stay on its certificate. */
@@ -31,7 +33,7 @@ export function canvasFromMaps(maps: AtlasMapView[], size: { width: number; heig
     const n = w.nodes.length;
     w = applyEdit(w, {
       type: "add-atlas-map",
-      map: { id: m.id, certificateAddress: m.certificateAddress, spec: specOf(m), text: atlasMapText(m) },
+      map: { id: m.id, certificateAddress: m.certificateAddress, spec: specOf(m), text: storedMapSummary(m, storedMapDetail(m.source.model, m.partition ?? null)) },
       source: { modelId: m.source.id, name: m.source.name, model: m.source.model },
       target: { modelId: m.target.id, name: m.target.name, model: m.target.model },
       ids: { source: `n${n + 1}`, target: `n${n + (w.nodes.some((x) => x.modelId === m.source.id) ? 1 : 2)}`, edge: `e${w.edges.length + 1}` },

@@ -5,6 +5,7 @@ import { buttonClass } from "@/components/ui/button";
 import { CounterexampleView } from "@/components/counterexample/counterexample-view";
 import { ecaTable } from "@/lib/ca";
 import type { Model } from "@/lib/models";
+import { AtlasPartition } from "./atlas-partition";
 import { browserApi, runJob, type JobSnapshot } from "./api";
 import { nodeLabel, tryCanonical } from "./derivedModels";
 import { Field, inputClass } from "./model-forms";
@@ -82,6 +83,10 @@ export function MapEditor({
           </a>
           {edge.certificateAddress ? <span className="block break-all font-mono text-[10px] text-ink-faint">{edge.certificateAddress}</span> : null}
         </p>
+      ) : null}
+      {/* An atlas edge keeps its kind only in its text (drafts store no more); its certificate has the partition. */}
+      {edge.state === "certified" && edge.spec === null && edge.atlasText?.includes("lumping") ? (
+        <AtlasPartition address={edge.certificateAddress} mapId={edge.mapId} source={source?.model ?? null} />
       ) : null}
       {edge.problem ? (
         <div className="space-y-2" role="status">

@@ -6,7 +6,7 @@ import { atlasMapText, mapEndLabels } from "./atlasMaps";
 import { inputClass } from "./model-forms";
 
 type End = { id: string; name: string; kind?: string; address?: string };
-export type AtlasMap = { id: string; kind: string; block: number | null; steps: number | null; source: End; target: End; status: string };
+export type AtlasMap = { id: string; kind: string; block: number | null; steps: number | null; source: End; target: End; status: string; certificateAddress?: string };
 
 async function fetchMaps(url: string): Promise<AtlasMap[]> {
   const response = await fetch(url);

@@ -73,7 +73,8 @@ export function specText(spec: MapSpec | null): string {
 
 /** An edge in words: its parameters, or for a map taken from the atlas its kind and main parameter (its certificate has the rest). */
 export function edgeText(edge: WbEdge): string {
-  return edge.spec === null && edge.state === "certified" ? (edge.atlasText ?? "certified map from the atlas") : specText(edge.spec);
+  if (edge.state === "certified" && edge.atlasText) return edge.atlasText;
+  return edge.spec === null && edge.state === "certified" ? "certified map from the atlas" : specText(edge.spec);
 }
 
 function MapEdge({ id, sourceX, sourceY, targetX, targetY, sourcePosition, targetPosition, data, markerEnd, selected }: EdgeProps<EdgeData>) {

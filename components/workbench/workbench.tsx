@@ -6,17 +6,24 @@ import { buttonClass } from "@/components/ui/button";
 import type { Model } from "@/lib/models";
 import { browserApi, newId } from "./api";
 import { CounterexampleView } from "@/components/counterexample/counterexample-view";
-import { atlasMapText } from "./atlasMaps";
 import { canvasBounds } from "./canvasBounds";
 import { certifyWorkbench, type CertifyOutcome } from "./certifyWorkbench";
 import { nodeLabel } from "./derivedModels";
 import { layoutWorkbench, placeNew } from "./layoutWorkbench";
+import { certificatePartition, storedMapDetail, storedMapSummary } from "./mapSummary";
 import { MapEditor, STATE_CLASS, STATE_TEXT, type JobProgress } from "./map-editor";
 import { MapSearch, type AtlasMap } from "./map-search";
 import { AddModelPanel, inputClass, type NewModel } from "./model-forms";
 import { NodeInspector } from "./node-inspector";
 import { edgeText, NODE_HEIGHT, NODE_WIDTH, WorkbenchCanvas } from "./workbench-canvas";
 import { chainPath, edgeRefusal, initialHistory, workbenchReducer, type MapSpec, type WbEdge, type WbNode, type Workbench as Canvas } from "./workbenchState";
+
+/** A lumping's partition from its certificate, for the edge's summary; null for other maps or when it cannot be read. */
+async function atlasPartition(m: AtlasMap): Promise<number[] | null> {
+  if ((m.kind !== "lumping" && m.kind !== "exact-lumping") || !m.certificateAddress) return null;
+  const res = await browserApi("GET", `/api/certificates/${encodeURIComponent(m.certificateAddress)}`);
+  return res.status < 300 ? certificatePartition((res.body as { certificate?: unknown }).certificate) : null;
+}
 
 export type DraftInfo = { id: string; name: string; shared: boolean; mine: boolean; ownerName: string };
 
@@ -146,10 +153,11 @@ function WorkbenchInner({ draft: initialDraft, canvas, canEdit, canCertify }: Pr
       setNotice("The models of that map could not be read.");
       return;
     }
+    const sourceModel = (s.body as { model: Model }).model;
     dispatch({
       type: "add-atlas-map",
-      map: { id: m.id, certificateAddress: null, spec: null, text: atlasMapText(m) },
-      source: { modelId: m.source.id, name: m.source.name, model: (s.body as { model: Model }).model },
+      map: { id: m.id, certificateAddress: m.certificateAddress ?? null, spec: null, text: storedMapSummary(m, storedMapDetail(sourceModel, await atlasPartition(m))) },
+      source: { modelId: m.source.id, name: m.source.name, model: sourceModel },
       target: { modelId: m.target.id, name: m.target.name, model: (t.body as { model: Model }).model },
       ids: { source: newId("n"), target: newId("n"), edge: newId("e") },
     });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { derivedModel, nodeLabel } from "./derivedModels";
 import { presetProjection, projectionIssue } from "./projectionPresets";
+import { edgeText } from "./workbench-canvas";
 import { chainPath, edgeRefusal, emptyWorkbench, initialHistory, workbenchReducer, type WbAction, type WbEdge, type WbNode } from "./workbenchState";
 
 const node = (id: string, rule: number | null = null): WbNode => ({
@@ -52,6 +53,15 @@ describe("workbenchReducer", () => {
     h = workbenchReducer(h, { type: "edge-result", id: "e", patch: { state: "certified", mapId: "m1", certificateAddress: "sha256:x" } });
     h = workbenchReducer(h, { type: "update-node", id: "a", patch: { model: { kind: "eca", rule: 150 } } });
     expect(h.present.edges[0]).toMatchObject({ state: "proposed", mapId: null, certificateAddress: null });
+  });
+
+  it("drops an atlas map's text when its parameters are changed, so the edge no longer claims to be that map", () => {
+    const atlas: WbEdge = { ...edge("e", "a", "b"), spec: { kind: "decimation", steps: 2 }, state: "certified", mapId: "m1", atlasText: "decimation k=2, 4 states" };
+    let h = run([{ type: "add-node", node: node("a") }, { type: "add-node", node: node("b") }, { type: "add-edge", edge: atlas }]);
+    expect(edgeText(h.present.edges[0])).toBe("decimation k=2, 4 states");
+    h = workbenchReducer(h, { type: "set-spec", id: "e", spec: { kind: "decimation", steps: 3 } });
+    expect(h.present.edges[0]).not.toHaveProperty("atlasText");
+    expect(edgeText(h.present.edges[0])).toBe("decimation k=3");
   });
 
   it("removing a node removes its maps; edits of unknown ids change nothing", () => {

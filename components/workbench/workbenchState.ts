@@ -80,6 +80,12 @@ function reopen(edges: WbEdge[], nodeId: string): WbEdge[] {
   );
 }
 
+/** An edge whose parameters changed is no longer the atlas map its text described. */
+function withoutAtlasText(e: WbEdge): WbEdge {
+  const { atlasText: _stale, ...rest } = e;
+  return rest;
+}
+
 /** Whether an edge from source to target may be drawn: no loop, no second edge between the same two nodes. */
 export function edgeRefusal(w: Workbench, source: string, target: string): string | null {
   if (source === target) return "A map needs two different nodes.";
@@ -153,7 +159,7 @@ export function applyEdit(w: Workbench, action: WbAction): Workbench {
       return {
         ...w,
         edges: w.edges.map((e) =>
-          e.id === action.id ? { ...e, spec: action.spec, state: "proposed", mapId: null, certificateAddress: null, problem: null } : e,
+          e.id === action.id ? { ...withoutAtlasText(e), spec: action.spec, state: "proposed", mapId: null, certificateAddress: null, problem: null } : e,
         ),
         chain: { ...w.chain, id: null, address: null },
       };

@@ -2,12 +2,13 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { PageHeader } from "@/components/atlas/page-header";
 import { canvasFromMaps, type AtlasMapView } from "@/components/workbench/canvasFromMaps";
+import { certificatePartition } from "@/components/workbench/mapSummary";
 import { LeftOutMaps } from "@/components/workbench/left-out-maps";
 import { leftOutMaps, mapIdsOf, type LeftOutMap, type MapLookup } from "@/components/workbench/requestedMaps";
 import { Workbench } from "@/components/workbench/workbench";
 import { NODE_HEIGHT, NODE_WIDTH } from "@/components/workbench/canvasSize";
 import { emptyWorkbench } from "@/components/workbench/workbenchState";
-import { getMap, getModel } from "@/db/queries/atlas";
+import { getMap, getModel, getWorkspaceCertificate } from "@/db/queries/atlas";
 import type { ModelInput } from "@/lib/models";
 import { can } from "@/lib/policy";
 import { getWorkspaceContext } from "@/server/context";
@@ -15,6 +16,12 @@ import { getWorkspaceContext } from "@/server/context";
 export const metadata: Metadata = { title: "Workbench" };
 
 type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+/** A lumping's partition from its certificate, for the edge's summary (the map row keeps only kind and sizes). */
+async function partitionOf(workspaceId: string, address: string): Promise<number[] | null> {
+  const row = await getWorkspaceCertificate({ workspaceId, address });
+  return row ? certificatePartition(JSON.parse(row.body)) : null;
+}
 
 /** One id of `?maps=`: the map and its models when it is certified here, and what the notice needs otherwise. */
 async function lookUpMap(workspaceId: string, mapId: string): Promise<{ lookup: MapLookup; view: AtlasMapView | null }> {
@@ -25,9 +32,11 @@ async function lookUpMap(workspaceId: string, mapId: string): Promise<{ lookup: 
   const [source, target] = await Promise.all([getModel({ workspaceId, idOrAddress: map.source.id }), getModel({ workspaceId, idOrAddress: map.target.id })]);
   // The models of a stored map are always there (foreign keys); a gap is answered as "not found", never a 500.
   if (!source || !target) return { lookup: { id: mapId, map: null }, view: null };
+  const partition = map.kind === "lumping" || map.kind === "exact-lumping" ? await partitionOf(workspaceId, map.certificateAddress) : null;
   return {
     lookup,
     view: {
+      partition,
       id: map.id,
       kind: map.kind,
       block: map.block,
