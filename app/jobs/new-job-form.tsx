@@ -4,10 +4,23 @@ import { useRouter } from "next/navigation";
 import { useId, useMemo, useState } from "react";
 import { buttonClass } from "@/components/ui/button";
 import { DEFAULT_FIELDS, FORM_KINDS, jobParams, type FormKind, type JobFields } from "@/components/workbench/jobForms";
+import { MAP_FORM_KINDS, verifyChainParams, verifyMapParams, type MapFormKind } from "@/components/workbench/mapJobForms";
+import { EMPTY_MAP_JOB, MapJobFields, type MapJobState } from "./map-job-fields";
 
 export type KindOption = { name: string; title: string; example: unknown };
 
 const isFormKind = (name: string): name is FormKind => (FORM_KINDS as readonly string[]).includes(name);
+const isMapFormKind = (name: string): name is MapFormKind => (MAP_FORM_KINDS as readonly string[]).includes(name);
+/** Every kind but the test kinds has a form; JSON stays behind "Advanced". */
+const hasForm = (name: string) => isFormKind(name) || isMapFormKind(name);
+
+/** The params a form gives, or its errors by field; null for a kind without a form. */
+function formParams(kind: string, fields: JobFields, mapJob: MapJobState) {
+  if (isFormKind(kind)) return jobParams(kind, fields);
+  if (kind === "verify-map") return verifyMapParams(mapJob.picks[0] ?? null);
+  if (kind === "verify-chain") return verifyChainParams({ name: mapJob.name, save: mapJob.save }, mapJob.picks);
+  return null;
+}
 const inputClass = "mt-1 w-full rounded-md border border-line-strong bg-paper-raised px-2 py-1.5 text-sm";
 
 /**
@@ -19,22 +32,22 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
   const id = useId();
   const [kind, setKind] = useState(kinds[0]?.name ?? "");
   const [fields, setFields] = useState<JobFields>(() => (isFormKind(kinds[0]?.name ?? "") ? { ...DEFAULT_FIELDS[kinds[0].name as FormKind] } : {}));
-  const [advanced, setAdvanced] = useState(() => !isFormKind(kinds[0]?.name ?? ""));
+  const [advanced, setAdvanced] = useState(() => !hasForm(kinds[0]?.name ?? ""));
+  const [mapJob, setMapJob] = useState<MapJobState>(EMPTY_MAP_JOB);
   const [json, setJson] = useState(() => JSON.stringify(kinds[0]?.example ?? {}, null, 2));
   const [serverError, setServerError] = useState<{ field: string; message: string } | null>(null);
   const [touched, setTouched] = useState(false);
   const [busy, setBusy] = useState(false);
 
-  const fromForm = useMemo(() => (isFormKind(kind) ? jobParams(kind, fields) : null), [kind, fields]);
+  const fromForm = useMemo(() => formParams(kind, fields, mapJob), [kind, fields, mapJob]);
 
   function chooseKind(name: string) {
     setKind(name);
     setServerError(null);
     setTouched(false);
-    if (isFormKind(name)) {
-      setFields({ ...DEFAULT_FIELDS[name] });
-      setAdvanced(false);
-    } else setAdvanced(true);
+    setMapJob(EMPTY_MAP_JOB);
+    if (isFormKind(name)) setFields({ ...DEFAULT_FIELDS[name] });
+    setAdvanced(!hasForm(name));
     setJson(JSON.stringify(kinds.find((k) => k.name === name)?.example ?? {}, null, 2));
   }
 
@@ -79,8 +92,9 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
     }
   }
 
-  const errorFor = (name: string): string | undefined =>
-    serverError?.field === name ? serverError.message : touched || fields[name] !== DEFAULT_FIELDS[kind as FormKind]?.[name] ? fromForm?.errors[name] : undefined;
+  // A field's error shows once the person has changed it (or a map was chosen), or tried to start the job.
+  const begun = (name: string) => (isMapFormKind(kind) ? mapJob !== EMPTY_MAP_JOB : fields[name] !== DEFAULT_FIELDS[kind as FormKind]?.[name]);
+  const errorFor = (name: string): string | undefined => (serverError?.field === name ? serverError.message : touched || begun(name) ? fromForm?.errors[name] : undefined);
   const field = (name: string, label: string, control: React.ReactNode, hint?: string) => (
     <div key={name}>
       <label htmlFor={`${id}-${name}`} className="block text-sm font-medium">
@@ -177,7 +191,8 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
           {text("seed", "Seed", "A generated chain of groups × members states (at most 2,000,000), ten transitions out of each; the job finds its coarsest exact lumping.")}
         </>
       ) : null}
-      {isFormKind(kind) ? (
+      {!advanced && isMapFormKind(kind) ? <MapJobFields kind={kind} id={id} state={mapJob} onChange={(update) => setMapJob(update)} field={field} /> : null}
+      {hasForm(kind) ? (
         <label className="flex items-center gap-2 text-xs text-ink-soft">
           <input type="checkbox" checked={advanced} onChange={(e) => toggleAdvanced(e.target.checked)} />
           Advanced: edit the parameters as JSON

@@ -14,8 +14,11 @@ async function fetchMaps(url: string): Promise<AtlasMap[]> {
   return ((await response.json()) as { items: AtlasMap[] }).items;
 }
 
-/** Certified maps of the atlas, searched as the person types, dropped onto the canvas with their models. */
-export function MapSearch({ onAdd, disabled }: { onAdd: (m: AtlasMap) => void; disabled: boolean }) {
+/**
+ * Certified maps of the atlas, searched as the person types: dropped onto the canvas with their models,
+ * or chosen on a job form (`action` names the button, "Add" by default).
+ */
+export function MapSearch({ onAdd, disabled, action = "Add" }: { onAdd: (m: AtlasMap) => void; disabled: boolean; action?: string }) {
   const [q, setQ] = useState("");
   const query = useDeferredValue(q.trim());
   const { data, error } = useSWR(`/api/search?target=maps&limit=30${query ? `&q=${encodeURIComponent(query)}` : ""}`, fetchMaps, { keepPreviousData: true });
@@ -26,7 +29,7 @@ export function MapSearch({ onAdd, disabled }: { onAdd: (m: AtlasMap) => void; d
     <div className="space-y-1">
       <input type="search" value={q} onChange={(e) => setQ(e.target.value)} placeholder="Search by model, e.g. ECA 146" aria-label="Search certified maps" className={inputClass} />
       {error ? <p className="text-xs text-brick-700">The atlas search did not answer.</p> : null}
-      <ul className="max-h-56 space-y-1 overflow-auto pr-1" aria-label="Certified maps to add">
+      <ul className="max-h-56 space-y-1 overflow-auto pr-1" aria-label={`Certified maps to ${action.toLowerCase()}`}>
         {items.length === 0 ? <li className="text-xs text-ink-faint">No certified map matches.</li> : null}
         {items.map((m) => {
           const from = names.get(m.source.id) ?? m.source.name;
@@ -37,8 +40,8 @@ export function MapSearch({ onAdd, disabled }: { onAdd: (m: AtlasMap) => void; d
               <span className="min-w-0 flex-1 text-xs leading-snug break-words">
                 {from} → {to} <span className="block font-mono text-ink-faint">{atlasMapText(m)}</span>
               </span>
-              <button type="button" disabled={disabled} onClick={() => onAdd(m)} className="rounded px-1 text-xs font-semibold text-tide-800 ring-1 ring-line-strong disabled:opacity-40" aria-label={`Add ${from} → ${to} (${atlasMapText(m)})`}>
-                Add
+              <button type="button" disabled={disabled} onClick={() => onAdd(m)} className="rounded px-1 text-xs font-semibold text-tide-800 ring-1 ring-line-strong disabled:opacity-40" aria-label={`${action} ${from} → ${to} (${atlasMapText(m)})`}>
+                {action}
               </button>
             </li>
           );
