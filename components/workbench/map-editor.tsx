@@ -64,7 +64,9 @@ export function MapEditor({
   const id = useId();
   const source = workbench.nodes.find((n) => n.id === edge.source);
   const shape = nodeShape(workbench, edge.source);
-  const kinds: MapSpec["kind"][] = shape?.kind === "markov" ? ["lumping", "decimation"] : shape?.kind === "ca" ? ["projection", "blocking", "iterate"] : [];
+  // A map taken from the atlas as it stands (no parameters here) is not re-kinded: its certificate fixes it.
+  const fromAtlas = edge.state === "certified" && edge.spec === null;
+  const kinds: MapSpec["kind"][] = fromAtlas ? [] : shape?.kind === "markov" ? ["lumping", "decimation"] : shape?.kind === "ca" ? ["projection", "blocking", "iterate"] : [];
   const set = (spec: MapSpec) => dispatch({ type: "set-spec", id: edge.id, spec });
   const sourceModel = tryCanonical(source?.model ?? null);
 
@@ -85,7 +87,7 @@ export function MapEditor({
         </p>
       ) : null}
       {/* An atlas edge keeps its kind only in its text (drafts store no more); its certificate has the partition. */}
-      {edge.state === "certified" && edge.spec === null && edge.atlasText?.includes("lumping") ? (
+      {fromAtlas && edge.atlasText?.includes("lumping") ? (
         <AtlasPartition address={edge.certificateAddress} mapId={edge.mapId} source={source?.model ?? null} />
       ) : null}
       {edge.problem ? (
@@ -102,7 +104,7 @@ export function MapEditor({
         </div>
       ) : null}
 
-      {kinds.length === 0 ? <p className="text-xs text-ink-faint">Certify the map into the source node first: its model is not known yet.</p> : null}
+      {kinds.length === 0 && !fromAtlas ? <p className="text-xs text-ink-faint">Certify the map into the source node first: its model is not known yet.</p> : null}
       {kinds.length > 0 ? (
         <Field id={`${id}-kind`} label="Kind of map">
           <select
