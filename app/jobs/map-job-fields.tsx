@@ -41,7 +41,7 @@ export function MapJobFields({
   field: FieldRender;
 }) {
   async function pick(m: AtlasMap) {
-    const entry: PickedMap = { id: m.id, label: labelOf(m), sourceId: m.source.id, targetId: m.target.id };
+    const entry: PickedMap = { id: m.id, label: labelOf(m), source: m.source, target: m.target };
     onChange((s) => ({ ...s, picks: kind === "verify-map" ? [entry] : [...s.picks, entry] }));
     const read = await readCertificate(m);
     // Every link of this map gets the certificate (a chain may pass through one map twice).

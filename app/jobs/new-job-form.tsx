@@ -11,7 +11,7 @@ export type KindOption = { name: string; title: string; example: unknown };
 
 const isFormKind = (name: string): name is FormKind => (FORM_KINDS as readonly string[]).includes(name);
 const isMapFormKind = (name: string): name is MapFormKind => (MAP_FORM_KINDS as readonly string[]).includes(name);
-/** Every kind but the test kinds has a form; JSON stays behind "Advanced". */
+/** Whether a kind has a form (every product kind now); a kind without one is started from its JSON. */
 const hasForm = (name: string) => isFormKind(name) || isMapFormKind(name);
 
 /** The params a form gives, or its errors by field; null for a kind without a form. */

@@ -56,7 +56,13 @@ function certificateOf(built: ReturnType<typeof certifyProjection> | ReturnType<
   if (!built.ok) throw new Error("the fixture does not hold");
   return built.certificate;
 }
-const picked = (id: string, from: string, to: string, certificate?: unknown): PickedMap => ({ id, label: `${from} → ${to}`, sourceId: from, targetId: to, certificate });
+const picked = (id: string, from: string, to: string, certificate?: unknown): PickedMap => ({
+  id,
+  label: `${from} → ${to}`,
+  source: { id: from, name: from.replace("e", "ECA ") },
+  target: { id: to, name: to.replace("e", "ECA ") },
+  certificate,
+});
 
 describe("the map check form", () => {
   it("rebuilds a chosen projection and a lumping as the job takes them, and the job's check gives the map's own certificate", () => {
@@ -100,7 +106,7 @@ describe("the chain check form", () => {
   it("names the field at fault: no name, no map, links that do not meet, certificates still being read", () => {
     expect(verifyChainParams({ name: " ", save: true }, [])).toEqual({ params: null, errors: { name: "Give the chain a name.", maps: "Add at least one map." } });
     const apart = verifyChainParams({ name: "x", save: false }, [picked("2", "e128", "e128", b), picked("1", "e146", "e128", a)]);
-    expect(apart.errors).toEqual({ maps: "Link 2 (e146 → e128) does not start where link 1 (e128 → e128) ends." });
+    expect(apart.errors).toEqual({ maps: "Link 2 starts at ECA 146, but link 1 ends at ECA 128." });
     // The job's own check refuses the same order (composeChain, link 2).
     expect(composeChain([b, a]).ok).toBe(false);
     expect(verifyChainParams({ name: "x", save: true }, [picked("1", "e146", "e128")]).errors.maps).toBe("Reading the certificates…");

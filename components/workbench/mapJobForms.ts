@@ -6,7 +6,14 @@ export const MAP_FORM_KINDS = ["verify-map", "verify-chain"] as const;
 export type MapFormKind = (typeof MAP_FORM_KINDS)[number];
 
 /** A certified map chosen on a job form; `certificate` is its stored certificate once read (undefined while reading). */
-export type PickedMap = { id: string; label: string; sourceId: string; targetId: string; certificate?: unknown; readError?: string };
+export type PickedMap = {
+  id: string;
+  label: string;
+  source: { id: string; name: string };
+  target: { id: string; name: string };
+  certificate?: unknown;
+  readError?: string;
+};
 
 /** The verify-chain job's bound on links (server/jobs/kinds/verify-chain.compute.ts). */
 export const CHAIN_LINKS_MAX = 64;
@@ -57,7 +64,8 @@ export function verifyMapParams(picked: PickedMap | null): JobParamsResult {
 /** The first link that does not start where the one before it ends, in words; null when every link meets the next. */
 export function chainGap(maps: PickedMap[]): string | null {
   for (let i = 1; i < maps.length; i++) {
-    if (maps[i].sourceId !== maps[i - 1].targetId) return `Link ${i + 1} (${maps[i].label}) does not start where link ${i} (${maps[i - 1].label}) ends.`;
+    const [before, link] = [maps[i - 1], maps[i]];
+    if (link.source.id !== before.target.id) return `Link ${i + 1} starts at ${link.source.name}, but link ${i} ends at ${before.target.name}.`;
   }
   return null;
 }
