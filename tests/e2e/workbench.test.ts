@@ -2,7 +2,10 @@ import { mkdirSync } from "node:fs";
 import { desc, eq } from "drizzle-orm";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { certificates, chains, drafts, maps, models } from "@/db/schema";
+import { createCertifiedEdge } from "@/db/queries/atlas";
+import { certificates, chains, drafts, jobs, maps, models } from "@/db/schema";
+import { DEFAULT_LIMITS } from "@/lib/verify";
+import { runVerifyTask, type BuildRequest } from "@/server/atlas/verify-task";
 import { launchBrowser, startTestServer, type TestServer } from "@/tests/support";
 
 let server: TestServer;
@@ -67,6 +70,31 @@ async function unlabelledControls(page: Page): Promise<string[]> {
     return [...document.querySelectorAll("input:not([type=hidden]), select, textarea, button")].filter((el) => !named(el)).map((el) => el.outerHTML.slice(0, 120));
   });
 }
+
+/** A map of the atlas made as the server makes one: built and verified by the core's checker, then stored (curator as author). */
+async function certifiedMap(build: BuildRequest): Promise<string> {
+  const verified = runVerifyTask({ op: "build", build, limits: DEFAULT_LIMITS });
+  if (verified.status !== "holds") throw new Error(`the fixture does not hold: ${JSON.stringify(verified).slice(0, 300)}`);
+  const stored = await createCertifiedEdge({
+    workspaceId: server.workspace.id,
+    userId: person("curator").id,
+    certificate: { ...verified, verifiedAt: new Date() },
+    source: verified.source,
+    target: verified.target,
+    map: { kind: verified.kind, block: verified.block, steps: verified.steps, summary: verified.text },
+  });
+  return stored.mapId;
+}
+
+// Rule 146 onto rule 128 at block 3 with "the block is 111" (Israeli & Goldenfeld, PRE 73, 026203, 2006).
+const RULE_146_TO_128: BuildRequest = { kind: "projection", rule: 146, block: 3, projection: [0, 0, 0, 0, 0, 0, 0, 1] };
+const RULE_128_TO_128: BuildRequest = { kind: "projection", rule: 128, block: 2, projection: [0, 0, 0, 1] };
+// An invented weather chain: {damp, wet} is a block because both rows put 1/4 on dry (Kemeny & Snell 1960, §6.3).
+const WEATHER_LUMP: BuildRequest = {
+  kind: "lumping",
+  chain: { kind: "markov", labels: ["dry", "damp", "wet"], matrix: [["1/2", "1/4", "1/4"], ["1/4", "1/2", "1/4"], ["1/4", "1/4", "1/2"]] },
+  partition: [0, 1, 1],
+};
 
 async function certify(page: Page) {
   await page.getByRole("button", { name: "Certify maps and chain" }).click();
@@ -290,6 +318,124 @@ describe("the workbench", () => {
     await shot(page, "5-job-done");
     await page.context().close();
   }, 180_000);
+
+  it("names each map of the address it leaves out, with why: one a curator retracted (linked to its page) and an unknown id; the certified map opens", async () => {
+    const kept = await certifiedMap(RULE_146_TO_128);
+    const gone = await certifiedMap({ kind: "projection", rule: 90, block: 2, projection: [0, 1, 1, 0] });
+    const curator = await signedIn("curator");
+    const retracted = await curator.evaluate(
+      (id) => fetch(`/api/maps/${id}/retract`, { method: "POST", headers: { "content-type": "application/json" }, body: JSON.stringify({ reason: "Checked against the wrong projection convention." }) }).then((r) => r.status),
+      gone,
+    );
+    expect(retracted).toBe(200);
+    await curator.context().close();
+
+    for (const width of [1366, 390]) {
+      const page = await signedIn("contributor", width);
+      await page.goto(`${server.url}/chains/workbench?maps=${kept},${gone},no-such-map`);
+      const notice = page.locator("[data-left-out-maps]");
+      await notice.waitFor();
+      await expect(notice.locator("h2").textContent()).resolves.toBe("2 maps of this address are not on the canvas");
+      const [first, second] = await notice.locator("li").allTextContents();
+      expect(first).toBe("ECA 90 → ECA 90 (projection N=2 T=2): retracted by a curator: “Checked against the wrong projection convention.”");
+      expect(second).toBe("map no-such-map: not found: this workspace has no such map, or it is not visible to you");
+      await expect(notice.locator('[data-left-out="retracted"] a').getAttribute("href")).resolves.toBe(`/atlas/maps/${gone}`);
+      await expect(notice.locator('[data-left-out="not-found"] a').count()).resolves.toBe(0);
+      // The certified map is on the canvas, alone.
+      await expect.poll(() => page.locator('[data-edge-label="certified"]').count()).toBe(1);
+      await expect(page.locator('[data-node-name="ECA 146"]').count()).resolves.toBe(1);
+      await expect(page.evaluate(() => document.documentElement.scrollWidth)).resolves.toBeLessThanOrEqual(width);
+      await shot(page, `6-left-out-${width}`);
+      await page.context().close();
+    }
+  }, 180_000);
+
+  it("shows a lumping from the atlas with its partition in the source chain's labels, on its edge and in full in the inspector", async () => {
+    const lump = await certifiedMap(WEATHER_LUMP);
+    for (const width of [1366, 390]) {
+      const page = await signedIn("contributor", width);
+      await page.goto(`${server.url}/chains/workbench?maps=${lump}`);
+      const label = page.locator('[data-edge-label="certified"]');
+      await label.waitFor();
+      await expect(label.locator("div").first().textContent()).resolves.toBe("lumping 3 → 2: {dry} {damp,wet}");
+      await selectInList(page, /^Markov chain \(3 states\) → .*lumping 3 → 2/);
+      const partition = page.locator("[data-atlas-partition]");
+      await partition.waitFor();
+      await expect(partition.locator("h4").textContent()).resolves.toBe("Partition: 3 states into 2 blocks");
+      await expect(partition.locator("li").allTextContents()).resolves.toEqual(["block 1: {dry}", "block 2: {damp, wet}"]);
+      // A certified map from the atlas is not offered another kind: its certificate fixes it.
+      await expect(page.getByLabel("Kind of map").count()).resolves.toBe(0);
+      await shot(page, `7-lumping-${width}`);
+      await page.context().close();
+    }
+  }, 180_000);
+
+  it("checks a certified map again from the map check form, which succeeds and links the map already in the atlas", async () => {
+    const mapId = await certifiedMap(RULE_146_TO_128);
+    const page = await signedIn("contributor");
+    await page.goto(`${server.url}/jobs`);
+    await page.getByLabel("Kind", { exact: true }).selectOption({ label: "Map check" });
+    await expect(page.getByRole("button", { name: "Start job" }).isDisabled()).resolves.toBe(true);
+    await page.getByLabel("Search certified maps").fill("ECA 146");
+    await page.getByRole("button", { name: /^Choose ECA 146 → ECA 128 \(projection N=3 T=3\)$/ }).click();
+    await expect(page.locator("[data-chosen-map]").textContent()).resolves.toBe("ECA 146 → ECA 128 (projection N=3 T=3)");
+    // Enabled once the map's certificate is read.
+    await expect.poll(() => page.getByRole("button", { name: "Start job" }).isEnabled(), { timeout: 30_000 }).toBe(true);
+    await shot(page, "8-map-check-form");
+    await page.getByRole("button", { name: "Start job" }).click();
+    await page.waitForURL(/\/jobs\/[^/]+$/);
+    await page.locator("[data-finished-at]").waitFor({ timeout: 120_000 });
+    const jobId = page.url().split("/").pop()!;
+    const [job] = await server.db.select().from(jobs).where(eq(jobs.id, jobId));
+    expect(job).toMatchObject({ kind: "verify-map", status: "succeeded" });
+    // The same certificate as the map's: the job found it already in the atlas and wrote no second map.
+    const [map] = await server.db.select().from(maps).where(eq(maps.id, mapId));
+    expect(JSON.parse(job.result!)).toMatchObject({ ok: true, status: "existing", mapId, address: map.certificateAddress });
+    const result = page.locator("[data-job-result]");
+    await expect(result.getByRole("link", { name: "The certified map" }).getAttribute("href")).resolves.toBe(`/atlas/maps/${mapId}`);
+    await expect(result.textContent()).resolves.toContain("(already in the atlas)");
+    await shot(page, "8-map-check-done");
+    await page.context().close();
+  }, 180_000);
+
+  it("builds a chain check from maps in order: says where two links do not meet, and starts once they are moved into order", async () => {
+    await certifiedMap(RULE_146_TO_128);
+    await certifiedMap(RULE_128_TO_128);
+    for (const width of [1366, 390]) {
+      const page = await signedIn("contributor", width);
+      await page.goto(`${server.url}/jobs`);
+      await page.getByLabel("Kind", { exact: true }).selectOption({ label: "Chain check" });
+      await page.getByLabel("Name of the chain").fill(`146 to 128, then 128 at block 2 (${width})`);
+      await page.getByLabel("Search certified maps").fill("ECA 128");
+      await page.getByRole("button", { name: /^Add ECA 128 → ECA 128 \(projection N=2 T=2\)$/ }).click();
+      await page.getByLabel("Search certified maps").fill("ECA 146");
+      await page.getByRole("button", { name: /^Add ECA 146 → ECA 128 \(projection N=3 T=3\)$/ }).click();
+      const links = page.getByRole("list", { name: "Links of the chain" }).locator("li");
+      await expect.poll(() => links.count()).toBe(2);
+      const error = page.getByText("Link 2 starts at ECA 146, but link 1 ends at ECA 128.");
+      await error.waitFor();
+      await expect(page.getByRole("button", { name: "Start job" }).isDisabled()).resolves.toBe(true);
+      await shot(page, `9-chain-form-gap-${width}`);
+      await page.getByRole("button", { name: "Move link 2 up" }).click();
+      await expect.poll(() => error.count()).toBe(0);
+      await expect(links.first().textContent()).resolves.toContain("ECA 146 → ECA 128");
+      await expect.poll(() => page.getByRole("button", { name: "Start job" }).isEnabled(), { timeout: 30_000 }).toBe(true);
+      await expect(page.evaluate(() => document.documentElement.scrollWidth)).resolves.toBeLessThanOrEqual(width);
+      await shot(page, `9-chain-form-${width}`);
+      if (width === 1366) {
+        await page.getByRole("button", { name: "Start job" }).click();
+        await page.waitForURL(/\/jobs\/[^/]+$/);
+        await page.locator("[data-finished-at]").waitFor({ timeout: 120_000 });
+        await expect(page.getByRole("link", { name: "The stored chain" }).count()).resolves.toBe(1);
+        const [chain] = await server.db.select().from(chains).where(eq(chains.name, "146 to 128, then 128 at block 2 (1366)"));
+        const [composite] = await server.db.select().from(certificates).where(eq(certificates.address, chain.compositeCertificateAddress));
+        // Block 3 then block 2 is block 6 (FORMAT.md, pasting rule 10).
+        expect(JSON.parse(composite.body)).toMatchObject({ map: { kind: "projection", block: 6 }, source: { kind: "eca", rule: 146 }, target: { kind: "eca", rule: 128 } });
+        await shot(page, "9-chain-check-done");
+      }
+      await page.context().close();
+    }
+  }, 240_000);
 
   it("lays the workbench out for a phone-sized screen", async () => {
     const page = await signedIn("contributor", 390);
