@@ -83,7 +83,8 @@ function AtlasEdge({ id, data, label, markerEnd, style }: EdgeProps<EdgeData>) {
           <div
             data-edge-label={id}
             className={`absolute flex items-center justify-center overflow-hidden whitespace-nowrap rounded-sm border font-mono text-[11px] leading-none ${data.emphasis === "picked" ? "border-tide-600 bg-tide-50 text-tide-800" : "border-line bg-paper-raised text-ink-soft"}`}
-            style={{ transform: `translate(${box.x}px, ${box.y}px)`, width: box.width, height: box.height }}
+            // Above the picked edges, which are lifted (zIndex 1) over the faded nodes and would cross their own labels.
+            style={{ transform: `translate(${box.x}px, ${box.y}px)`, width: box.width, height: box.height, zIndex: 2 }}
           >
             {label}
           </div>
