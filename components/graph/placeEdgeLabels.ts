@@ -33,7 +33,7 @@ export function labelSize(text: string, options: LabelPlacementOptions = {}): { 
  * points along its own edge's curve and takes the first whose box meets no obstacle (the nodes) and
  * no label already placed. A label with no free place is left out of the result; the drawing shows it
  * only when its edge is picked out. Greedy fixed-candidate placement is the common practice for map
- * labels (Christensen, Marks & Shieber, ACM TOG 14, 203, 1995, compare it with better optimisers).
+ * labels (Christensen, Marks & Shieber, ACM TOG 14, 203, 1995, compare it with better optimisers; reference recalled from memory).
  */
 export function placeEdgeLabels(requests: LabelRequest[], obstacles: Box[], options: LabelPlacementOptions = {}): Map<string, Box> {
   const { margin = 2, along = [0.5, 0.4, 0.6, 0.3, 0.7, 0.22, 0.78, 0.15, 0.85] } = options;
