@@ -71,4 +71,18 @@ describe("coarsenessLayers", () => {
       { numRuns: 200 },
     );
   });
+  it("wraps a wide layer so that the classes most mapped onto sit on its top line, nearest what maps onto them", () => {
+    // Eight coarsest classes s0…s7 (six fit on a 1060 px line) and four finer ones that all map onto s0 and s1.
+    const sinks = Array.from({ length: 8 }, (_, i) => ({ id: `s${i}`, label: `s${i}` }));
+    const finer = Array.from({ length: 4 }, (_, i) => ({ id: `f${i}`, label: `f${i}` }));
+    const edges = finer.flatMap((f) => ["s0", "s1"].map((t) => ({ id: `${f.id}->${t}`, source: f.id, target: t })));
+    const layout = layoutLayers([...sinks, ...finer], edges, { nodeWidth: 160, nodeHeight: 58, maxWidth: 1060, lineGap: 44 });
+    const y = new Map(layout.nodes.map((n) => [n.id, n.y]));
+    const lines = [...new Set(sinks.map((s) => y.get(s.id)!))].sort((a, b) => a - b);
+    expect(lines).toHaveLength(2);
+    expect(lines[1] - lines[0]).toBe(58 + 44);
+    expect(["s0", "s1"].map((id) => y.get(id))).toEqual([lines[0], lines[0]]);
+    expect(["s2", "s3", "s4", "s5", "s6", "s7"].every((id) => y.get(id) === lines[1])).toBe(true);
+    for (const f of finer) expect(y.get(f.id)!).toBeLessThan(lines[0]);
+  });
 });

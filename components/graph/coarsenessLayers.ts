@@ -74,9 +74,11 @@ export type LayeredOptions = {
   nodeHeight?: number;
   /** Widest a row may be before a layer wraps onto a second line. @default 1060 */
   maxWidth?: number;
-  /** @default 18 */
+  /** Horizontal space between nodes. @default 18 */
   gap?: number;
-  /** Vertical space between layers. @default 70 */
+  /** Vertical space between the lines of a wrapped layer: room for the labels of edges leaving the upper line. @default 44 */
+  lineGap?: number;
+  /** Vertical space between layers: room for a row or two of edge labels. @default 100 */
   layerGap?: number;
 };
 
@@ -87,13 +89,18 @@ export type LayeredOptions = {
  * the page wraps onto more lines.
  */
 export function layoutLayers(nodes: GraphNode[], edges: GraphEdge[], options: LayeredOptions = {}) {
-  const { nodeWidth = 160, nodeHeight = 58, maxWidth = 1060, gap = 18, layerGap = 70 } = options;
+  const { nodeWidth = 160, nodeHeight = 58, maxWidth = 1060, gap = 18, lineGap = 44, layerGap = 100 } = options;
   const layers = coarsenessLayers(nodes, edges);
   const top = Math.max(0, ...layers.values());
   const perRow = Math.max(1, Math.floor((maxWidth + gap) / (nodeWidth + gap)));
   const xOf = new Map<string, number>();
   const targets = new Map<string, string[]>();
-  for (const e of edges) targets.set(e.source, [...(targets.get(e.source) ?? []), e.target]);
+  const degree = new Map<string, number>();
+  for (const e of edges) {
+    targets.set(e.source, [...(targets.get(e.source) ?? []), e.target]);
+    degree.set(e.target, (degree.get(e.target) ?? 0) + 1);
+    degree.set(e.source, (degree.get(e.source) ?? 0) - 1);
+  }
   const placed: (GraphNode & { x: number; y: number; width: number; height: number; layer: number })[] = [];
   const bands: { layer: number; y: number; height: number }[] = [];
   let y = 0;
@@ -105,7 +112,9 @@ export function layoutLayers(nodes: GraphNode[], edges: GraphEdge[], options: La
       const xs = (targets.get(n.id) ?? []).map((t) => xOf.get(t)).filter((x): x is number => x !== undefined);
       return xs.length ? xs.reduce((a, b) => a + b, 0) / xs.length : Number.POSITIVE_INFINITY;
     };
-    const ordered = band.map((n) => ({ n, c: centre(n) })).sort((a, b) => (a.c === b.c ? 0 : a.c - b.c) || a.n.id.localeCompare(b.n.id, "en", { numeric: true }));
+    const ordered = wrapByFlow(band, perRow, degree).flatMap((line) =>
+      line.map((n) => ({ n, c: centre(n) })).sort((a, b) => (a.c === b.c ? 0 : a.c - b.c) || a.n.id.localeCompare(b.n.id, "en", { numeric: true })),
+    );
     const lines = Math.ceil(ordered.length / perRow);
     ordered.forEach(({ n }, i) => {
       const line = Math.floor(i / perRow);
@@ -113,9 +122,9 @@ export function layoutLayers(nodes: GraphNode[], edges: GraphEdge[], options: La
       const offset = (maxWidth - (inLine * nodeWidth + (inLine - 1) * gap)) / 2;
       const x = Math.max(0, offset) + (i % perRow) * (nodeWidth + gap);
       xOf.set(n.id, x + nodeWidth / 2);
-      placed.push({ ...n, x, y: y + line * (nodeHeight + gap), width: nodeWidth, height: nodeHeight, layer });
+      placed.push({ ...n, x, y: y + line * (nodeHeight + lineGap), width: nodeWidth, height: nodeHeight, layer });
     });
-    const height = lines * nodeHeight + (lines - 1) * gap;
+    const height = lines * nodeHeight + (lines - 1) * lineGap;
     bands.push({ layer, y, height });
     y += height + layerGap;
   }
@@ -128,4 +137,15 @@ export function layoutLayers(nodes: GraphNode[], edges: GraphEdge[], options: La
     height: total,
     bands: bands.map((b) => ({ ...b, y: flip(b.y, b.height) })),
   };
+}
+
+/**
+ * Splits a layer that is wider than a line into lines, bottom line first: the nodes that mostly send
+ * edges down go to the bottom line and those that mostly receive edges from above go to the top one
+ * (by in-degree minus out-degree), so that fewer edges have to cross the layer's own lines.
+ */
+function wrapByFlow<T extends { id: string }>(band: T[], perRow: number, degree: Map<string, number>): T[][] {
+  const flow = (n: T) => degree.get(n.id) ?? 0;
+  const sorted = [...band].sort((a, b) => flow(a) - flow(b) || a.id.localeCompare(b.id, "en", { numeric: true }));
+  return Array.from({ length: Math.ceil(sorted.length / perRow) }, (_, i) => sorted.slice(i * perRow, (i + 1) * perRow));
 }

@@ -96,7 +96,13 @@ async function Hierarchy({ workspaceId, view }: { workspaceId: string; view: Vie
         <p className="text-sm text-ink-soft">Drag to pan, scroll or pinch to zoom; pick a class below to see only its ancestors and descendants.</p>
       )}
       {drawn.length > 0 ? (
-        <AtlasGraph layout={layout} height={focused ? height : Math.max(height, 560)} readableZoom={focused ? 0.1 : 0.6} minimap={!focused} />
+        <AtlasGraph
+          layout={layout}
+          height={focused ? height : Math.max(height, 560)}
+          readableZoom={focused ? 0.1 : 0.6}
+          minimap={!focused}
+          selected={focused ? `class-${focus}` : null}
+        />
       ) : (
         <p className="rounded-md bg-paper px-3 py-6 text-center text-sm text-ink-faint">No coarse-graining between ECAs is certified{block !== null ? " at this block size" : ""} yet.</p>
       )}
