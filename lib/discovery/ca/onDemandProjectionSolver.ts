@@ -10,6 +10,7 @@
  * far, instead of the whole table; a complete assignment meets every window exactly once on its path.
  */
 import type { RuleTable } from "@/lib/ca";
+import { LightCone } from "./lightCone";
 import { SlicedWindowCheck } from "./slicedWindowCheck";
 import { MAX_WIDE_STATES, type WideProjectionClass } from "./wideProjectionSolver";
 
@@ -26,55 +27,22 @@ export function onDemandApplies(t: RuleTable, block: number, steps: number): boo
 }
 
 /**
- * f^T of the centre cell of a (2rT+1)-cell pattern (leftmost cell most significant). The cone of s steps is the
- * rule applied to 2r+1 overlapping cones of s − 1 steps: levels below T are small and built whole, level T is
- * filled on first use, since a refuted branch needs few of its entries.
+ * Windows checked one by one in spread order before the flat pass, and the odd stride that spreads them: a near
+ * miss whose conflicts are rare can survive hundreds of words of 32 windows in counting-like order, yet meet a
+ * conflict within this spread sample (one random rule at N = 3: 494 words without the sample, none with it).
  */
-class LightCone {
-  /** level T, −1 where not yet computed */
-  readonly top: Int8Array;
-  /** level T − 1 (for T = 1, the rule itself) */
-  readonly below: Uint8Array;
-  private readonly belowMask: number;
-  readonly span: number;
-  readonly rule: Uint8Array;
-
-  constructor(
-    private readonly t: RuleTable,
-    steps: number,
-  ) {
-    this.span = 2 * t.r + 1;
-    this.rule = t.table;
-    let level: Uint8Array = Uint8Array.from(t.table);
-    for (let s = 2; s < steps; s++) level = this.nextLevel(level, s);
-    this.below = level;
-    this.belowMask = level.length - 1;
-    this.top = steps === 1 ? Int8Array.from(t.table) : new Int8Array(2 ** (2 * t.r * steps + 1)).fill(-1);
-  }
-
-  private nextLevel(level: Uint8Array, s: number): Uint8Array {
-    const next = new Uint8Array(2 ** (2 * this.t.r * s + 1));
-    const mask = level.length - 1;
-    for (let x = 0; x < next.length; x++) {
-      let idx = 0;
-      for (let shift = this.span - 1; shift >= 0; shift--) idx = (idx << 1) | level[(x >>> shift) & mask];
-      next[x] = this.t.table[idx];
-    }
-    return next;
-  }
-
-  /** Computes and stores level T at `pattern`. */
-  fill(pattern: number): number {
-    const { below, belowMask } = this;
-    let idx = 0;
-    for (let shift = this.span - 1; shift >= 0; shift--) idx = (idx << 1) | below[(pattern >>> shift) & belowMask];
-    return (this.top[pattern] = this.t.table[idx]);
-  }
-}
-
-/** Windows checked in spread order before the flat pass, and the odd stride that spreads them. */
-const CHECK_SAMPLE = 1024;
+const CHECK_SAMPLE = 64;
 const SAMPLE_STRIDE = 0x5bd1;
+
+/**
+ * A state is processed (its windows evaluated one by one) only while it completes at most this many windows; past
+ * that, the remaining states are enumerated and each complete projection meets the flat pass, which refutes a
+ * wrong one within a few words of 32 windows. At width 5 (radius-2 coarse rules) the third state completes 211
+ * windows and the fourth 781, so three states are processed. Measured on random radius-2 rules at N = 3: with no
+ * budget, 31 rules with one hard rule among them took 2.9 ms; with a budget of four states 1.1 ms, of three 0.9 ms,
+ * of two 2.0 ms.
+ */
+const WINDOW_BUDGET = 256;
 
 /** Trail entry kinds, for undoing a branch. */
 const P_SET = 0;
@@ -104,7 +72,8 @@ class OnDemandSearch {
   readonly waitMask: Int32Array;
   readonly trail: number[] = [];
   readonly queue: number[] = [];
-  readonly found = new Map<string, WideProjectionClass>();
+  found = new Map<string, WideProjectionClass>();
+  shouldStop: () => boolean = () => false;
   private readonly cone: LightCone;
   private readonly coneShift: Int32Array;
   private readonly coneMask: number;
@@ -113,12 +82,11 @@ class OnDemandSearch {
   private current = 0;
 
   constructor(
-    t: RuleTable,
+    r: number,
     readonly block: number,
     readonly steps: number,
-    readonly shouldStop: () => boolean,
   ) {
-    const R = Math.ceil((t.r * steps) / block);
+    const R = Math.ceil((r * steps) / block);
     this.n = 2 ** block;
     this.width = 2 * R + 1;
     this.p = new Int8Array(this.n).fill(-1);
@@ -128,25 +96,31 @@ class OnDemandSearch {
     this.waitG = emptyLists(this.g.length);
     this.waitP = emptyLists(this.n);
     this.waitMask = new Int32Array(this.g.length);
-    this.cone = new LightCone(t, steps);
+    this.cone = new LightCone(r, steps);
     const cells = this.width * block;
     // output cell j of the centre block is window cell RN + j; its cone ends rT cells to its right
     this.coneShift = new Int32Array(block);
-    for (let j = 0; j < block; j++) this.coneShift[j] = cells - 1 - (R * block + j + t.r * steps);
-    this.coneMask = 2 ** (2 * t.r * steps + 1) - 1;
+    for (let j = 0; j < block; j++) this.coneShift[j] = cells - 1 - (R * block + j + r * steps);
+    this.coneMask = 2 ** (2 * r * steps + 1) - 1;
     this.sliced = SlicedWindowCheck.applies(block, this.width, this.coneMask) ? new SlicedWindowCheck(this.cone, block, this.width, this.coneShift, this.coneMask) : null;
+  }
+
+  /**
+   * Starts over on rule t (of the radius this search was sized for). Nothing is assigned: a search ends by undoing
+   * its whole trail (see solveZeroRootedOnDemand), which is cheaper than clearing every buffer.
+   */
+  reset(t: RuleTable, shouldStop: () => boolean): void {
+    this.cone.load(t);
+    this.shouldStop = shouldStop;
+    this.found = new Map();
+    this.queue.length = 0;
   }
 
   /** The centre block after T steps of window w (blocks as N-bit digits, leftmost most significant). */
   image(w: number): number {
     const { cone, coneShift, coneMask } = this;
-    const top = cone.top;
     let v = 0;
-    for (let j = 0; j < this.block; j++) {
-      const pattern = (w >>> coneShift[j]) & coneMask;
-      const cell = top[pattern];
-      v = (v << 1) | (cell >= 0 ? cell : cone.fill(pattern));
-    }
+    for (let j = 0; j < this.block; j++) v = (v << 1) | cone.cell((w >>> coneShift[j]) & coneMask);
     return v;
   }
 
@@ -226,32 +200,21 @@ class OnDemandSearch {
    * Every window against a complete assignment, in one flat pass: once p is known the search has nothing left to
    * branch on, and a plain loop checks the windows no processed state has reached far faster than the
    * propagation's enumeration would. After the spread sample, where the sizes line up, the loop is bit-sliced
-   * (slicedWindowCheck.ts: 32 windows per word, the cone's level T rebuilt whole as bits once per search).
+   * (slicedWindowCheck.ts: 32 windows per word, reading the cone's words).
    */
   checkAll(): boolean {
-    const { p, g, block, width, trail, cone, coneShift, coneMask } = this;
-    const top = cone.top;
+    const { p, g, block, width, trail } = this;
     const n = this.n;
     const mask = n - 1;
     const windows = 2 ** (width * block);
     if (!this.checkSample(Math.min(windows / 8, CHECK_SAMPLE))) return false;
     if (this.sliced) return this.sliced.check(p, g, trail, G_SET);
-    const first = coneShift[0];
     for (let high = 0; high < windows; high += n) {
       let prefix = 0;
       for (let shift = (width - 1) * block; shift >= block; shift -= block) prefix = (prefix << 1) | p[(high >>> shift) & mask];
       prefix <<= 1;
       for (let x = 0; x < n; x++) {
-        const w = high | x;
-        let pattern = (w >>> first) & coneMask;
-        let cell = top[pattern];
-        let d = cell >= 0 ? cell : cone.fill(pattern);
-        for (let j = 1; j < block; j++) {
-          pattern = (w >>> coneShift[j]) & coneMask;
-          cell = top[pattern];
-          d = (d << 1) | (cell >= 0 ? cell : cone.fill(pattern));
-        }
-        const value = p[d];
+        const value = p[this.image(high | x)];
         const c = prefix | p[x];
         const gc = g[c];
         if (gc !== value) {
@@ -299,9 +262,15 @@ class OnDemandSearch {
         if (this.p.indexOf(-1) >= 0) this.assign(this.p.indexOf(-1), 1);
       }
       if (this.assigned[0] + this.assigned[1] === this.n) return this.checkAll();
-      if (!this.process(this.queue.pop() as number)) return false;
+      const v = this.queue.pop() as number;
+      if (this.completes(this.processedCount + 1) <= WINDOW_BUDGET && !this.process(v)) return false;
     }
     return true;
+  }
+
+  /** How many windows the k-th processed state completes: those over k states that use it at least once. */
+  completes(k: number): number {
+    return k ** this.width - (k - 1) ** this.width;
   }
 
   undo(mark: number): void {
@@ -360,20 +329,39 @@ class OnDemandSearch {
   }
 }
 
+/** Searches whose light cone is at most this many patterns are kept for the next rule of the same sizes. */
+const POOLED_CONE_PATTERNS = 2 ** 16;
+const pool = new Map<string, OnDemandSearch>();
+
+/**
+ * A search sized for (r, N, T): the buffers of a small one are reused, since allocating them costs as much as
+ * refuting a rule (an atlas job runs thousands of rules of the same sizes).
+ */
+function pooledSearch(r: number, block: number, steps: number): OnDemandSearch {
+  if (2 * r * steps + 1 > Math.log2(POOLED_CONE_PATTERNS)) return new OnDemandSearch(r, block, steps);
+  const key = `${r}/${block}/${steps}`;
+  let search = pool.get(key);
+  if (!search) pool.set(key, (search = new OnDemandSearch(r, block, steps)));
+  return search;
+}
+
 /**
  * All binary projections with p(0) = 0 of the block-N, T-step supercell of binary rule `t`, using both symbols,
  * keyed by the coarse table's bits; null when stopped. Call only where onDemandApplies.
  */
 export function solveZeroRootedOnDemand(t: RuleTable, block: number, steps: number, hooks: { shouldStop?: () => boolean } = {}): Map<string, WideProjectionClass> | null {
   if (!onDemandApplies(t, block, steps)) throw new RangeError(`the on-demand projection search does not handle k=${t.k}, r=${t.r}, N=${block}, T=${steps}`);
-  const search = new OnDemandSearch(t, block, steps, hooks.shouldStop ?? (() => false));
-  search.assign(0, 0);
-  if (!search.propagate()) return search.found;
+  const search = pooledSearch(t.r, block, steps);
+  search.reset(t, hooks.shouldStop ?? (() => false));
   try {
-    search.visit();
+    search.assign(0, 0);
+    if (search.propagate()) search.visit();
+    return search.found;
   } catch (e) {
     if (e instanceof StopOnDemand) return null;
     throw e;
+  } finally {
+    // back to nothing assigned, so that the pooled search is ready for the next rule
+    search.undo(0);
   }
-  return search.found;
 }

@@ -6,100 +6,39 @@
  * value when s_j ≥ 5), so the word of that output cell across the 32 windows is a run of bits of the cone's
  * level-T table packed as bits, spread. The projection of the image block is then a mux tree over the N cell words
  * (the table of p as constant words), and each group of windows sharing their coarse prefix is compared with g at
- * once. Bit-slicing is common practice for evaluating boolean functions over many inputs in parallel.
+ * once (bitSlices.ts).
  */
 
-/** The T-step light cone as the search keeps it: level T filled on demand (−1 where not yet computed). */
-export interface ConeTable {
-  readonly top: Int8Array;
-  /** level T − 1, whole */
-  readonly below: Uint8Array;
-  /** the fine rule's table and its window (2r + 1 cells) */
-  readonly rule: Uint8Array;
-  readonly span: number;
-  fill(pattern: number): number;
-}
+import { WORD, applyTable, spreadRun, tableScratchLength } from "./bitSlices";
+import type { ConeWords } from "./lightCone";
 
-const WORD = 32;
 const WORD_STRIDE = 0x2d5;
 
-/** spread[s][b]: each of the 8 bits of byte b repeated 2^s times (bits beyond 32 dropped). */
-const SPREAD: Int32Array[] = Array.from({ length: 5 }, (_, s) =>
-  Int32Array.from({ length: 256 }, (_, b) => {
-    let word = 0;
-    const run = 2 ** s;
-    for (let k = 0; k < 8 && k * run < WORD; k++) if ((b >>> k) & 1) word |= (run === WORD ? -1 : ((1 << run) - 1)) << (k * run);
-    return word;
-  }),
-);
-
-/**
- * Bit (w >>> s) & mask of `bits` for the 32 values w0 … w0 + 31 (w0 a multiple of 32, mask + 1 ≥ 32), as a word:
- * a run of 32 >>> s consecutive bits, each repeated 2^s times.
- */
-function runWord(bits: Int32Array, mask: number, w0: number, s: number): number {
-  const start = (w0 >>> s) & mask;
-  const word = bits[start >>> 5];
-  if (s === 0) return word;
-  if (s >= 5) return -((word >>> (start & 31)) & 1);
-  const run = (word >>> (start & 31)) & ((1 << (WORD >>> s)) - 1);
-  if (s === 1) return SPREAD[1][run & 255] | (SPREAD[1][run >>> 8] << 16);
-  return SPREAD[s][run];
-}
-
-/**
- * The boolean function with truth table `table` (constant words, 0 or −1; index bits from `inputs[0]`, most
- * significant) applied bitwise to the words `inputs[0 … count − 1]`: a mux tree, least significant input first,
- * with `scratch` (half the table's length at least) for the levels above the first.
- */
-function muxTree(inputs: Int32Array, count: number, table: Int32Array, scratch: Int32Array): number {
-  let d = inputs[count - 1];
-  let len = table.length >>> 1;
-  for (let k = 0; k < len; k++) scratch[k] = (d & table[2 * k + 1]) | (~d & table[2 * k]);
-  for (let j = count - 2; j >= 0; j--) {
-    d = inputs[j];
-    len >>>= 1;
-    for (let k = 0; k < len; k++) scratch[k] = (d & scratch[2 * k + 1]) | (~d & scratch[2 * k]);
-  }
-  return scratch[0];
-}
-
-/** A table of 0/1 entries (length a multiple of 32) packed as bits, entry i at bit i & 31 of word i >>> 5. */
-function packBits(table: ArrayLike<number>): Int32Array {
-  const bits = new Int32Array(table.length / WORD);
-  for (let i = 0; i < table.length; i++) if (table[i]) bits[i >>> 5] |= 1 << (i & 31);
-  return bits;
-}
-
-/**
- * Level T of the cone as bits from level T − 1, 32 patterns per word: the 2r + 1 overlapping level-(T − 1)
- * patterns of 32 consecutive level-T patterns are runs of the lower table, and the rule is a mux tree over them.
- */
-function nextLevelBits(below: Uint8Array, rule: Uint8Array, span: number, size: number): Int32Array {
-  const lower = packBits(below);
-  const mask = below.length - 1;
-  const ruleWords = new Int32Array(rule.length);
-  for (let i = 0; i < rule.length; i++) ruleWords[i] = -rule[i];
-  const scratch = new Int32Array(ruleWords.length);
-  const inputs = new Int32Array(span);
-  const bits = new Int32Array(size / WORD);
-  for (let q = 0; q < bits.length; q++) {
-    for (let d = 0; d < span; d++) inputs[d] = runWord(lower, mask, q * WORD, span - 1 - d);
-    bits[q] = muxTree(inputs, span, ruleWords, scratch);
-  }
-  return bits;
+/** The coarse prefix's expected segment of projected images, −1 while a bit of g it needs is unknown. */
+function expectedSegment(g0: number, g1: number, m0: number, m1: number): number {
+  return g0 < 0 || g1 < 0 ? -1 : (g0 ? m0 : 0) | (g1 ? m1 : 0);
 }
 
 export class SlicedWindowCheck {
-  /** level T of the cone as bits, built once the first complete assignment reaches the flat pass */
-  private topBits: Int32Array | null = null;
   private readonly n: number;
   private readonly groups: number;
   private readonly values: Int32Array;
   private readonly cells: Int32Array;
+  /** p's table packed as bits (at most 16 block states: one word) */
+  private readonly pBits = new Int32Array(1);
+  /** per coarse prefix (the first width − 1 coarse cells): the expected segment, as expectedSegment gives it */
+  private readonly expect: Int32Array;
+  /**
+   * Where the groups of a word share all blocks but the last two's low bits (2^N ≥ 32 / 2^N, i.e. N ≥ 3), the
+   * word's expected images depend only on the coarse upper blocks and the high bits of the second-to-last block:
+   * per such key, the word once every group in it has met g.
+   */
+  private readonly wordsShareUpper: boolean;
+  private readonly wordExpect: Int32Array;
+  private readonly wordKnown: Uint8Array;
 
   constructor(
-    private readonly cone: ConeTable,
+    private readonly cone: ConeWords,
     private readonly block: number,
     private readonly width: number,
     private readonly coneShift: Int32Array,
@@ -107,8 +46,13 @@ export class SlicedWindowCheck {
   ) {
     this.n = 2 ** block;
     this.groups = WORD / this.n;
-    this.values = new Int32Array(this.n);
+    this.values = new Int32Array(tableScratchLength(block));
     this.cells = new Int32Array(block);
+    this.expect = new Int32Array(2 ** (width - 1));
+    this.wordsShareUpper = this.groups <= this.n && width >= 3;
+    const keys = this.wordsShareUpper ? 2 ** (width - 2) * (this.n / this.groups) : 0;
+    this.wordExpect = new Int32Array(keys);
+    this.wordKnown = new Uint8Array(keys);
   }
 
   /** Whether the words line up: at least 32 windows and cone patterns, and whole blocks of windows per word. */
@@ -116,19 +60,15 @@ export class SlicedWindowCheck {
     return block >= 1 && 2 ** block <= WORD / 2 && width * block >= 5 && coneMask + 1 >= WORD;
   }
 
-  private bits(): Int32Array {
-    if (this.topBits) return this.topBits;
-    const { top, below, rule, span } = this.cone;
-    const size = this.coneMask + 1;
-    if (below.length >= WORD && size === below.length * 2 ** (span - 1)) return (this.topBits = nextLevelBits(below, rule, span, size));
-    return (this.topBits = packBits(Int8Array.from(top, (cell, i) => (cell >= 0 ? cell : this.cone.fill(i)))));
-  }
-
   /** The projection of the image block across the 32 windows from w0: a mux tree over the output cell words. */
-  private projectedImages(bits: Int32Array, w0: number, pWords: Int32Array): number {
-    const { block, cells, values, coneShift, coneMask } = this;
-    for (let j = 0; j < block; j++) cells[j] = runWord(bits, coneMask, w0, coneShift[j]);
-    return muxTree(cells, block, pWords, values);
+  private projectedImages(w0: number): number {
+    const { block, cells, values, coneShift, coneMask, cone } = this;
+    for (let j = 0; j < block; j++) {
+      const s = coneShift[j];
+      const start = (w0 >>> s) & coneMask;
+      cells[j] = spreadRun(cone.word(start >>> 5), start, s);
+    }
+    return applyTable(cells, block, this.pBits, values);
   }
 
   /**
@@ -150,37 +90,74 @@ export class SlicedWindowCheck {
   /**
    * Every window against the complete projection p: false at the first coarse window whose windows disagree
    * (with each other or with g); otherwise bits of g still unset are set, each pushed on the trail as (kind, c).
+   * A group of windows sharing their coarse prefix is one comparison with its expected segment once both bits of
+   * g it meets are known.
    */
   check(p: Int8Array, g: Int8Array, trail: number[], gSetKind: number): boolean {
-    const { n, block, width, groups } = this;
-    const bits = this.bits();
-    const pWords = new Int32Array(n);
-    for (let x = 0; x < n; x++) pWords[x] = -p[x];
-    const xMask = [0, 0];
-    for (let x = 0; x < n; x++) xMask[p[x]] |= 1 << x;
+    const { n, block, width, groups, expect, wordExpect, wordKnown } = this;
+    let m1 = 0;
+    for (let x = 0; x < n; x++) if (p[x]) m1 |= 1 << x;
     const segMask = (1 << n) - 1;
+    const m0 = segMask & ~m1;
+    this.pBits[0] = m1;
+    for (let prefix = 0; prefix < expect.length; prefix++) expect[prefix] = expectedSegment(g[2 * prefix], g[2 * prefix + 1], m0, m1);
+    wordKnown.fill(0);
     const stateMask = n - 1;
-    const windows = 2 ** (width * block);
-    const [m0, m1] = xMask;
+    // integer bounds (2 ** … is a double, and slows every comparison with it)
+    const words = 1 << (width * block - 5);
+    const groupBits = 31 - Math.clz32(groups);
     let upperOf = -1;
     let upper = 0;
-    const words = windows / WORD;
     for (let q = 0; q < words; q++) {
       // an odd stride spreads the words: a near miss's conflicts sit together in counting order (they share blocks)
-      const w0 = (Math.imul(q, WORD_STRIDE) & (words - 1)) * WORD;
-      const images = this.projectedImages(bits, w0, pWords);
+      const w0 = (Math.imul(q, WORD_STRIDE) & (words - 1)) << 5;
+      const images = this.projectedImages(w0);
+      const high0 = w0 >>> block;
+      if (this.wordsShareUpper) {
+        // the word's groups share their upper blocks (N ≥ 3): once each group has met g, the word is one comparison
+        if (high0 >>> block !== upperOf) {
+          upperOf = high0 >>> block;
+          upper = this.upperCoarse(p, upperOf);
+        }
+        const key = (upper << (block - groupBits)) | ((high0 & stateMask) >>> groupBits);
+        if (wordKnown[key]) {
+          if (images !== wordExpect[key]) return false;
+          continue;
+        }
+      }
+      let whole = 0;
       for (let h = 0; h < groups; h++) {
-        const high = (w0 >>> block) + h;
+        const high = high0 + h;
         if (high >>> block !== upperOf) {
           upperOf = high >>> block;
-          upper = 0;
-          for (let shift = (width - 3) * block; shift >= 0; shift -= block) upper = (upper << 1) | p[(upperOf >>> shift) & stateMask];
+          upper = this.upperCoarse(p, upperOf);
         }
-        const prefix = ((upper << 1) | p[high & stateMask]) << 1;
+        const prefix = (upper << 1) | p[high & stateMask];
         const segment = (images >>> (h * n)) & segMask;
-        if (!this.settle(g, trail, gSetKind, prefix, segment & m0, m0) || !this.settle(g, trail, gSetKind, prefix | 1, segment & m1, m1)) return false;
+        const expected = expect[prefix];
+        if (segment !== expected) {
+          if (expected >= 0) return false;
+          const c = prefix << 1;
+          if (!this.settle(g, trail, gSetKind, c, segment & m0, m0) || !this.settle(g, trail, gSetKind, c | 1, segment & m1, m1)) return false;
+          expect[prefix] = expectedSegment(g[c], g[c | 1], m0, m1);
+        }
+        whole |= segment << (h * n);
+      }
+      if (this.wordsShareUpper) {
+        const key = (upper << (block - groupBits)) | ((high0 & stateMask) >>> groupBits);
+        wordExpect[key] = whole;
+        wordKnown[key] = 1;
       }
     }
     return true;
+  }
+
+  /** The coarse cells (p of each block) of the width − 2 blocks of `upperOf`, first block most significant. */
+  private upperCoarse(p: Int8Array, upperOf: number): number {
+    const { block, width } = this;
+    const stateMask = this.n - 1;
+    let upper = 0;
+    for (let shift = (width - 3) * block; shift >= 0; shift -= block) upper = (upper << 1) | p[(upperOf >>> shift) & stateMask];
+    return upper;
   }
 }
