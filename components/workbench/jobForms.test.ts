@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { LumpLargeChainParams } from "@/server/jobs/kinds/lump-large-chain.compute";
 import { TotalisticAtlasParams } from "@/server/jobs/kinds/totalistic-atlas.compute";
+import { EcaAtlasParams } from "@/server/jobs/kinds/eca-atlas.compute";
 import { TOTALISTIC_CODES } from "@/lib/discovery/totalisticAtlas";
 import { certificateAddress, certifyLumping, certifyProjection, type Certificate } from "@/lib/certificate";
 import { composeChain } from "@/lib/chain";
@@ -25,6 +26,16 @@ describe("the totalistic atlas form", () => {
     expect(jobParams("totalistic-atlas", { minCode: "9", maxCode: "3", blocks: "1" }).errors.maxCode).toBe("At least the first code.");
     const none = jobParams("totalistic-atlas", { minCode: "0", maxCode: "3", blocks: "" });
     expect(none).toEqual({ params: null, errors: { blocks: "Choose block 1, block 2 or both." } });
+  });
+});
+
+describe("the ECA atlas form", () => {
+  it("reaches the N = 9 smallest-block table for partitions alone, as the job's schema does, and stops projections at 5", () => {
+    const n9 = jobParams("eca-atlas", { minBlock: "2", maxBlock: "9", search: "partitions" });
+    expect(EcaAtlasParams.parse(n9.params)).toEqual({ minBlock: 2, maxBlock: 9, search: "partitions" });
+    expect(jobParams("eca-atlas", { minBlock: "2", maxBlock: "9", search: "both" }).errors).toEqual({ maxBlock: "A whole number from 2 to 5." });
+    expect(EcaAtlasParams.safeParse({ minBlock: 2, maxBlock: 9, search: "both" }).success).toBe(false);
+    expect(jobParams("eca-atlas", { minBlock: "2", maxBlock: "10", search: "partitions" }).errors).toEqual({ maxBlock: "A whole number from 2 to 9." });
   });
 });
 

@@ -58,6 +58,12 @@ function blocks(f: JobFields, max: number, errors: Record<string, string>) {
   return { minBlock, maxBlock };
 }
 
+/** As the job kinds' schemas: the ECA atlas takes projections to 5 and the partition sweep alone to 9 (the N = 9 table). */
+function maxBlockOf(kind: FormKind, search: string): number {
+  if (kind !== "eca-atlas") return 6;
+  return search === "partitions" ? 9 : 5;
+}
+
 /** Params for POST /api/jobs from a job form, checked as the person types (the server checks again). */
 export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
   if (kind === "totalistic-atlas") return totalisticParams(f);
@@ -74,7 +80,7 @@ export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
   }
   const search = f.search ?? "projections";
   if (!["projections", "partitions", "both"].includes(search)) errors.search = "Choose projections, partitions or both.";
-  const { minBlock, maxBlock } = blocks(f, kind === "eca-atlas" ? 5 : 6, errors);
+  const { minBlock, maxBlock } = blocks(f, maxBlockOf(kind, search), errors);
   if (kind === "search-projection") {
     const rule = whole(f.rule ?? "", 0, 255);
     if (rule === null) errors.rule = "Rule must be a whole number from 0 to 255.";
