@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { listMapsFrom } from "@/db/queries/maps";
 import { getModel } from "@/db/queries/models";
-import { listSearchRecords } from "@/db/queries/search";
+import { listEcaCongruenceRecords, listSearchRecords } from "@/db/queries/search";
+import { smallestBlockTable } from "@/components/atlas/smallestBlocks";
 import { searchRecords } from "@/db/schema";
 import { canonicalModel, modelAddress } from "@/lib/models";
 import type { TestDatabase } from "@/tests/support/database";
@@ -45,6 +46,18 @@ describe("the eca-atlas job", () => {
     expect(result.certificates.created + result.certificates.existing).toBe(result.found);
     expect(result.searchRecords).toBe(512);
     expect(await t.db.select().from(searchRecords)).toHaveLength(512);
+  });
+
+  it("fills the smallest-block table: every rule searched at block 2, the identity found there, rule 30 with none", async () => {
+    const table = smallestBlockTable(await listEcaCongruenceRecords({ workspaceId: ws }));
+    expect(table.unsearched).toEqual([]);
+    // Rule 204 is the identity (DOMAIN.md, Wolfram code): every partition of the four block states commutes with it.
+    expect(table.byBlock.map((g) => g.block)).toEqual([2]);
+    expect(table.byBlock[0].rules.map((c) => c.rule)).toContain(204);
+    // Rule 30 has no proper partition coarse-graining at block 2 (README, "N = 9": none up to block 9).
+    expect(table.none.map((g) => g.upTo)).toEqual([2]);
+    expect(table.none[0].rules.map((c) => c.rule)).toContain(30);
+    expect(table.byBlock[0].rules.length + table.none[0].rules.length).toBe(256);
   });
 
   it("finds what follows from the definitions for the identity, the shift and the zero rule", async () => {
