@@ -84,6 +84,20 @@ describe("the eca-atlas job", () => {
   });
 });
 
+describe("the eca-atlas job over partitions", () => {
+  it("stores every smallest-block coarse-graining up to block 4, the many-class ones too (rule 43: 12 classes at block 4)", { timeout: 300_000 }, async () => {
+    const done = await run("eca-atlas", { minBlock: 2, maxBlock: 4, search: "partitions" });
+    expect(done.status).toBe("succeeded");
+    const result = done.result as { found: number; certificates: { created: number; existing: number; refused: { what: string }[] } };
+    // the server's size bound used to count the 12-class target's alphabet: 12^12 windows instead of the check's 2^12
+    expect(result.certificates.refused).toEqual([]);
+    expect(result.certificates.created + result.certificates.existing).toBe(result.found);
+    const { model } = await recordsOf(43);
+    const fromRule43 = await listMapsFrom({ workspaceId: ws, modelId: model.id, limit: 200 });
+    expect(fromRule43.items.some((m) => m.kind === "projection" && m.block === 4)).toBe(true);
+  });
+});
+
 describe("the search-projection job", () => {
   it("finds rule 146 → rule 128 at block 3 and stores it with the search that found it", async () => {
     const done = await run("search-projection", { rule: 146, minBlock: 3, maxBlock: 3, search: "projections" });
