@@ -147,8 +147,8 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
       {!advanced && kind === "eca-atlas" ? (
         <>
           <div className="grid grid-cols-2 gap-2">
-            {text("minBlock", "Smallest block size (2–5; 9 for partitions)")}
-            {text("maxBlock", "Largest block size (2–5; 9 for partitions)")}
+            {text("minBlock", "Smallest block size (from 2)")}
+            {text("maxBlock", "Largest block size", "At most 5; 9 for partitions alone.")}
           </div>
           {searchSelect()}
         </>

@@ -43,7 +43,7 @@ export default async function SmallestBlockPage() {
           </Link>
         }
         title="Smallest block sizes"
-        lead="For each elementary CA, the smallest block size N at which some proper partition of the 2^N block states is a congruence (a coarse-graining onto a CA with fewer symbols, T = N), read from the recorded searches. A “none up to N” is an exhaustive negative result, citable through the rule's search record."
+        lead="For each elementary CA, the smallest block size N at which some proper partition of the 2ᴺ block states is a congruence (a coarse-graining onto a CA with fewer symbols, T = N), read from the recorded searches. A “none up to N” is an exhaustive negative result, citable through the rule's search record."
       />
       {searched === 0 ? (
         <Panel>
