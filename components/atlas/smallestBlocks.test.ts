@@ -36,8 +36,9 @@ describe("smallestBlockTable", () => {
     expect(table.byBlock).toEqual([{ block: 3, rules: [{ rule: 9, modelId: "m9", classes: 4 }] }]);
   });
 
-  it("ignores a search that did not start at block 2 (it cannot say which block is smallest) and unreadable rows", () => {
-    const table = smallestBlockTable([found(7, [4, 5], 2), none(8, [3, 4]), { rule: 11, modelId: "m11", coverage: "{", outcome: "{}" }]);
+  it("ignores a search that did not start at block 2 (it cannot say which block is smallest), one at T ≠ N, and unreadable rows", () => {
+    const atFourSteps = { ...none(9, [2, 3]), coverage: JSON.stringify({ rule: 9, blocks: [2, 3], steps: 4, exhaustive: true }) };
+    const table = smallestBlockTable([found(7, [4, 5], 2), none(8, [3, 4]), { rule: 11, modelId: "m11", coverage: "{", outcome: "{}" }, atFourSteps]);
     expect(table).toEqual({ byBlock: [], none: [], unsearched: Array.from({ length: 256 }, (_, i) => i) });
   });
 });

@@ -21,9 +21,12 @@ function parse(text: string): Record<string, unknown> {
   }
 }
 
-/** A record speaks for the smallest block only when it covered every block size from 2 up (block 1 has no proper partition of two states). */
+/** A record speaks for the smallest block only when it covered every block size from 2 up, at T = N (block 1 has no proper partition of two states). */
 function readRecord(row: CongruenceRecordRow): Reading | null {
-  const blocks = parse(row.coverage).blocks;
+  const coverage = parse(row.coverage);
+  // the table is of T = N coarse-grainings; a search with T steps apart answers another question
+  if (coverage.steps !== undefined && coverage.steps !== "T = N") return null;
+  const blocks = coverage.blocks;
   if (!Array.isArray(blocks) || blocks.length === 0 || !blocks.every((b, i) => b === i + 2)) return null;
   const outcome = parse(row.outcome);
   const upTo = blocks[blocks.length - 1] as number;

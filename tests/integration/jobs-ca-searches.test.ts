@@ -98,6 +98,30 @@ describe("the eca-atlas job over partitions", () => {
   });
 });
 
+describe("the search-projection job with steps apart from the block size", () => {
+  it("stores the radius-2 coarse-graining of the identity at N = 2, T = 3 and records the search at those steps, out of Ask's reach", { timeout: 300_000 }, async () => {
+    const done = await run("search-projection", { rule: 204, minBlock: 2, maxBlock: 2, steps: 3, search: "projections" });
+    expect(done.status).toBe("succeeded");
+    const result = done.result as { found: number; certificates: { refused: unknown[] } };
+    expect([result.found, result.certificates.refused]).toEqual([1, []]);
+    // Rule 204 is the identity (DOMAIN.md, Wolfram code): all 2^4 − 2 = 14 onto projections commute, onto the
+    // radius-2 identity, whose table entry is x₀, bit 2 of the index (DOMAIN.md §2b, R = ⌈3/2⌉ = 2; by hand)
+    const identity2 = { k: 2, r: 2, table: Array.from({ length: 32 }, (_, i) => (i >> 2) & 1) };
+    const { model, records } = await recordsOf(204);
+    const record = records.find((r) => r.coverage.steps === 3)!;
+    expect(record.coverage).toMatchObject({ blocks: [2], steps: 3, targetKinds: [], exhaustive: true });
+    expect(record.outcome.byTarget).toEqual([{ target: identity2, blocks: [{ block: 2, count: "14" }] }]);
+    const target = modelAddress(canonicalModel({ kind: "ca", ...identity2 }));
+    expect(record.outcome.targets).toEqual([target]);
+    const maps = await listMapsFrom({ workspaceId: ws, modelId: model.id, limit: 200 });
+    expect(maps.items.some((m) => m.kind === "projection" && m.block === 2 && m.steps === 3)).toBe(true);
+  });
+
+  it("refuses steps above 2N for the smallest block, naming the field", async () => {
+    await expect(queue.enqueue({ workspaceId: ws, ownerId: people.contributor.id, kind: "search-projection", params: { rule: 90, minBlock: 2, maxBlock: 3, steps: 5 } })).rejects.toThrow(/steps/);
+  });
+});
+
 describe("the search-projection job", () => {
   it("finds rule 146 → rule 128 at block 3 and stores it with the search that found it", async () => {
     const done = await run("search-projection", { rule: 146, minBlock: 3, maxBlock: 3, search: "projections" });
