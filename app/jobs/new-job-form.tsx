@@ -141,6 +141,7 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
             {text("minBlock", "Smallest block size (2–6)")}
             {text("maxBlock", "Largest block size (2–6)")}
           </div>
+          {text("steps", "Steps T per coarse step", "Blank for T = N; else 1 to 2N, block sizes up to 4 (a radius-2 coarse rule when T > N).")}
           {searchSelect()}
         </>
       ) : null}

@@ -64,6 +64,16 @@ function maxBlockOf(kind: FormKind, search: string): number {
   return search === "partitions" ? 9 : 5;
 }
 
+/** Steps T apart from the block size, as the search-projection job takes them: blank for T = N, else 1…2N and blocks up to 4. */
+function stepsField(text: string, minBlock: number | null, maxBlock: number | null, errors: Record<string, string>): number | undefined {
+  if (text.trim() === "") return undefined;
+  const top = 2 * (minBlock ?? 2);
+  const steps = whole(text, 1, top);
+  if (steps === null) errors.steps = `Blank for T = N, or a whole number from 1 to ${top} (2N for the smallest block size).`;
+  else if (maxBlock !== null && maxBlock > 4) errors.maxBlock = "At most 4 when the steps are given.";
+  return steps ?? undefined;
+}
+
 /** Params for POST /api/jobs from a job form, checked as the person types (the server checks again). */
 export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
   if (kind === "totalistic-atlas") return totalisticParams(f);
@@ -84,7 +94,8 @@ export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
   if (kind === "search-projection") {
     const rule = whole(f.rule ?? "", 0, 255);
     if (rule === null) errors.rule = "Rule must be a whole number from 0 to 255.";
-    return Object.keys(errors).length ? { params: null, errors } : { params: { rule, minBlock, maxBlock, search }, errors };
+    const steps = stepsField(f.steps ?? "", minBlock, maxBlock, errors);
+    return Object.keys(errors).length ? { params: null, errors } : { params: { rule, minBlock, maxBlock, search, ...(steps !== undefined ? { steps } : {}) }, errors };
   }
   return Object.keys(errors).length ? { params: null, errors } : { params: { minBlock, maxBlock, search }, errors };
 }
