@@ -163,6 +163,9 @@ export default async function AtlasPage({ searchParams }: { searchParams: Promis
             <Link href="/atlas/hierarchy" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
               ECA hierarchy
             </Link>
+            <Link href="/atlas/smallest-block" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
+              Smallest block sizes
+            </Link>
             <Link href="/atlas/ask" className="rounded-md px-3 py-1.5 text-sm font-medium text-tide-700 ring-1 ring-inset ring-line-strong hover:bg-tide-50">
               Ask the atlas
             </Link>

@@ -63,6 +63,15 @@ export function JobResultView({ result, params }: { result: unknown; params: unk
     );
   }
   if (typeof r.searchRecords === "number") items.push(<li key="records">Recorded {plural(r.searchRecords, "search record")} (what was searched, found or not).</li>);
+  if (isEcaPartitionSweep(params))
+    items.push(
+      <li key="smallest">
+        <Link href="/atlas/smallest-block" className="text-tide-800 underline">
+          The smallest-block table
+        </Link>{" "}
+        (every ECA's smallest block size with a proper partition).
+      </li>,
+    );
   if (r.partition && typeof r.blocks === "number") {
     items.push(
       <li key="lump">
@@ -126,6 +135,12 @@ export function JobResultView({ result, params }: { result: unknown; params: unk
       {r.counterexample ? <CounterexampleView counterexample={r.counterexample} labels={linkLabels(params, r.link)} /> : null}
     </div>
   );
+}
+
+/** An ECA atlas run over partitions (no single rule): its records fill the smallest-block table. */
+function isEcaPartitionSweep(params: unknown): boolean {
+  const p = params as { rule?: unknown; search?: unknown; minBlock?: unknown } | null;
+  return !!p && p.rule === undefined && (p.search === "partitions" || p.search === "both") && (p.minBlock ?? 2) === 2;
 }
 
 /** The state labels of the failing link's source chain (verify-chain), to name a lumping's states by label. */

@@ -141,14 +141,15 @@ export function NewJobForm({ kinds }: { kinds: KindOption[] }) {
             {text("minBlock", "Smallest block size (2–6)")}
             {text("maxBlock", "Largest block size (2–6)")}
           </div>
+          {text("steps", "Steps T per coarse step", "Blank for T = N; else 1 to 2N, block sizes up to 4 (a radius-2 coarse rule when T > N).")}
           {searchSelect()}
         </>
       ) : null}
       {!advanced && kind === "eca-atlas" ? (
         <>
           <div className="grid grid-cols-2 gap-2">
-            {text("minBlock", "Smallest block size (2–5)")}
-            {text("maxBlock", "Largest block size (2–5)")}
+            {text("minBlock", "Smallest block size (from 2)")}
+            {text("maxBlock", "Largest block size", "At most 5; 9 for partitions alone.")}
           </div>
           {searchSelect()}
         </>

@@ -96,5 +96,5 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       return 1;
     }
     return 0;
-  });
+  }, { maxBlock: "--max-block", minBlock: "--max-block" });
 }

@@ -1,4 +1,5 @@
 import type { CliIo } from "@/cli/io";
+import type { FieldFlags } from "@/cli/shared/cliError";
 import { CliError, LIMIT_OPTIONS, integerList, integerOption, limitFlag, limitsFrom, parseOptions, readJsonFile, readMatrixFile, requireString, runCommand } from "@/cli/shared";
 import { canonicalModel, type Model } from "@/lib/models";
 import { formatMatrix } from "@/lib/markov";
@@ -47,6 +48,7 @@ type Values = Record<string, string | boolean | undefined>;
 
 /** `certify <map> …`: runs the check and prints the sealed certificate (exit 0) or the counterexample (exit 1). */
 export async function run(args: string[], io: CliIo): Promise<number> {
+  const flags: FieldFlags = {};
   return runCommand(io, async () => {
     const [map, ...rest] = args;
     if (!map || map === "--help") {
@@ -54,6 +56,7 @@ export async function run(args: string[], io: CliIo): Promise<number> {
       return map ? 0 : 2;
     }
     const { values, positionals } = parseOptions(rest, OPTIONS);
+    Object.assign(flags, certifyFlags(values));
     if (positionals.length > 0) throw new CliError(`unexpected argument "${positionals[0]}"\n${USAGE}`);
     const limits = limitsFrom(values);
     const built = await build(map, values, limits);
@@ -63,7 +66,13 @@ export async function run(args: string[], io: CliIo): Promise<number> {
     }
     io.out(`${certificateText(built.certificate)}\n`);
     return 0;
-  });
+  }, flags);
+}
+
+/** The core's field names as this command's flags, so that "partition: …" from lib/ reads "--partition: …". */
+function certifyFlags(values: Values): FieldFlags {
+  const file = (flag: string) => (typeof values[flag] === "string" ? `--${flag} ${values[flag]}` : `--${flag}`);
+  return { partition: "--partition", labels: "--labels", steps: "--steps", block: "--block", projection: "--projection", rule: "--rule", matrix: file("matrix"), k: `${file("table")}: k`, r: `${file("table")}: r`, table: `${file("table")}: table` };
 }
 
 async function build(map: string, values: Values, limits: Limits): Promise<Built<unknown>> {

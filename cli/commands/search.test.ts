@@ -22,8 +22,8 @@ describe("cli search", () => {
     expect(targets(byTable.stdout)).toEqual(targets(byRule.stdout));
   });
 
-  it("search congruence lists coarsest first", async () => {
-    const { code, stdout } = await runCli(run, ["congruence", "--rule", "204", "--block", "2", "--json"]);
+  it("search congruence --each lists one congruence per line, coarsest first", async () => {
+    const { code, stdout } = await runCli(run, ["congruence", "--rule", "204", "--block", "2", "--each", "--json"]);
     expect(code).toBe(0);
     const classes = stdout.trim().split("\n").map((l) => JSON.parse(l).classes);
     expect(classes[0]).toBe(2);
@@ -60,7 +60,7 @@ describe("cli search", () => {
       for (const line of congruences.stdout.trim().split("\n")) {
         const c = JSON.parse(line);
         expect(c.target.r).toBe(2);
-        expect(c.target.table).toHaveLength(c.classes ** 5);
+        expect(c.target.table).toHaveLength(c.target.k ** 5);
       }
     } finally {
       dir.cleanup();

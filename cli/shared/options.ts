@@ -9,8 +9,19 @@ export function parseOptions(args: string[], options: OptionSpec): { values: Rec
     const { values, positionals } = parseArgs({ args, options, allowPositionals: true, strict: true });
     return { values: values as Record<string, string | boolean | undefined>, positionals };
   } catch (e) {
-    throw new CliError(e instanceof Error ? e.message : String(e));
+    throw new CliError(parseArgsMessage(args, e));
   }
+}
+
+/** node:util's parseArgs explains a value that starts with "-" over three lines; one line naming the flag and the value instead. */
+function parseArgsMessage(args: string[], e: unknown): string {
+  const message = e instanceof Error ? e.message : String(e);
+  const ambiguous = /^Option '(--[\w-]+)' argument is ambiguous/.exec(message);
+  if (ambiguous) {
+    const value = args[args.indexOf(ambiguous[1]) + 1];
+    return `${ambiguous[1]}: "${value}" is not a valid value (a value may not start with "-")`;
+  }
+  return message.split("\n")[0];
 }
 
 export function requireString(values: Record<string, string | boolean | undefined>, name: string): string {

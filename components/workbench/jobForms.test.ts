@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { LumpLargeChainParams } from "@/server/jobs/kinds/lump-large-chain.compute";
 import { TotalisticAtlasParams } from "@/server/jobs/kinds/totalistic-atlas.compute";
+import { EcaAtlasParams } from "@/server/jobs/kinds/eca-atlas.compute";
+import { SearchProjectionParams } from "@/server/jobs/kinds/search-projection.compute";
 import { TOTALISTIC_CODES } from "@/lib/discovery/totalisticAtlas";
 import { certificateAddress, certifyLumping, certifyProjection, type Certificate } from "@/lib/certificate";
 import { composeChain } from "@/lib/chain";
@@ -25,6 +27,30 @@ describe("the totalistic atlas form", () => {
     expect(jobParams("totalistic-atlas", { minCode: "9", maxCode: "3", blocks: "1" }).errors.maxCode).toBe("At least the first code.");
     const none = jobParams("totalistic-atlas", { minCode: "0", maxCode: "3", blocks: "" });
     expect(none).toEqual({ params: null, errors: { blocks: "Choose block 1, block 2 or both." } });
+  });
+});
+
+describe("the ECA atlas form", () => {
+  it("reaches the N = 9 smallest-block table for partitions alone, as the job's schema does, and stops projections at 5", () => {
+    const n9 = jobParams("eca-atlas", { minBlock: "2", maxBlock: "9", search: "partitions" });
+    expect(EcaAtlasParams.parse(n9.params)).toEqual({ minBlock: 2, maxBlock: 9, search: "partitions" });
+    expect(jobParams("eca-atlas", { minBlock: "2", maxBlock: "9", search: "both" }).errors).toEqual({ maxBlock: "A whole number from 2 to 5." });
+    expect(EcaAtlasParams.safeParse({ minBlock: 2, maxBlock: 9, search: "both" }).success).toBe(false);
+    expect(jobParams("eca-atlas", { minBlock: "2", maxBlock: "10", search: "partitions" }).errors).toEqual({ maxBlock: "A whole number from 2 to 9." });
+  });
+});
+
+describe("the coarse-graining search form", () => {
+  it("passes steps T apart from the block size as the job's schema takes them, and leaves them out when blank (T = N)", () => {
+    const withSteps = jobParams("search-projection", { rule: "90", minBlock: "2", maxBlock: "3", search: "projections", steps: "4" });
+    expect(SearchProjectionParams.parse(withSteps.params)).toEqual({ rule: 90, minBlock: 2, maxBlock: 3, search: "projections", steps: 4 });
+    const blank = jobParams("search-projection", { rule: "90", minBlock: "2", maxBlock: "3", search: "both", steps: " " });
+    expect(blank.params).toEqual({ rule: 90, minBlock: 2, maxBlock: 3, search: "both" });
+    // T = 5 > 2N at N = 2: refused here and by the job's schema alike, on the steps field
+    expect(Object.keys(jobParams("search-projection", { rule: "90", minBlock: "2", maxBlock: "3", search: "both", steps: "5" }).errors)).toEqual(["steps"]);
+    expect(SearchProjectionParams.safeParse({ rule: 90, minBlock: 2, maxBlock: 3, steps: 5 }).error?.issues[0].path).toEqual(["steps"]);
+    expect(Object.keys(jobParams("search-projection", { rule: "90", minBlock: "2", maxBlock: "5", search: "both", steps: "3" }).errors)).toEqual(["maxBlock"]);
+    expect(SearchProjectionParams.safeParse({ rule: 90, minBlock: 2, maxBlock: 5, steps: 3 }).success).toBe(false);
   });
 });
 

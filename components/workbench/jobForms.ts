@@ -58,6 +58,22 @@ function blocks(f: JobFields, max: number, errors: Record<string, string>) {
   return { minBlock, maxBlock };
 }
 
+/** As the job kinds' schemas: the ECA atlas takes projections to 5 and the partition sweep alone to 9 (the N = 9 table). */
+function maxBlockOf(kind: FormKind, search: string): number {
+  if (kind !== "eca-atlas") return 6;
+  return search === "partitions" ? 9 : 5;
+}
+
+/** Steps T apart from the block size, as the search-projection job takes them: blank for T = N, else 1…2N and blocks up to 4. */
+function stepsField(text: string, minBlock: number | null, maxBlock: number | null, errors: Record<string, string>): number | undefined {
+  if (text.trim() === "") return undefined;
+  const top = 2 * (minBlock ?? 2);
+  const steps = whole(text, 1, top);
+  if (steps === null) errors.steps = `Blank for T = N, or a whole number from 1 to ${top} (2N for the smallest block size).`;
+  else if (maxBlock !== null && maxBlock > 4) errors.maxBlock = "At most 4 when the steps are given.";
+  return steps ?? undefined;
+}
+
 /** Params for POST /api/jobs from a job form, checked as the person types (the server checks again). */
 export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
   if (kind === "totalistic-atlas") return totalisticParams(f);
@@ -74,11 +90,12 @@ export function jobParams(kind: FormKind, f: JobFields): JobParamsResult {
   }
   const search = f.search ?? "projections";
   if (!["projections", "partitions", "both"].includes(search)) errors.search = "Choose projections, partitions or both.";
-  const { minBlock, maxBlock } = blocks(f, kind === "eca-atlas" ? 5 : 6, errors);
+  const { minBlock, maxBlock } = blocks(f, maxBlockOf(kind, search), errors);
   if (kind === "search-projection") {
     const rule = whole(f.rule ?? "", 0, 255);
     if (rule === null) errors.rule = "Rule must be a whole number from 0 to 255.";
-    return Object.keys(errors).length ? { params: null, errors } : { params: { rule, minBlock, maxBlock, search }, errors };
+    const steps = stepsField(f.steps ?? "", minBlock, maxBlock, errors);
+    return Object.keys(errors).length ? { params: null, errors } : { params: { rule, minBlock, maxBlock, search, ...(steps !== undefined ? { steps } : {}) }, errors };
   }
   return Object.keys(errors).length ? { params: null, errors } : { params: { minBlock, maxBlock, search }, errors };
 }

@@ -374,3 +374,18 @@ export async function createSearchRecord({
     return row;
   });
 }
+
+export type EcaCongruenceRecord = { rule: number; modelId: string; maxBlock: number | null; coverage: string; outcome: string; createdAt: Date };
+
+/** Every recorded congruence search of an ECA in the workspace: the rows the smallest-block table is read from. */
+export async function listEcaCongruenceRecords({ db = getDatabase(), workspaceId }: { db?: Executor; workspaceId: string }): Promise<EcaCongruenceRecord[]> {
+  return withDb("reading congruence searches", async () => {
+    const rows = await db
+      .select({ rule: models.rule, modelId: models.id, maxBlock: searchRecords.maxBlock, coverage: searchRecords.coverage, outcome: searchRecords.outcome, createdAt: searchRecords.createdAt })
+      .from(searchRecords)
+      .innerJoin(models, eq(models.id, searchRecords.modelId))
+      .where(and(eq(searchRecords.workspaceId, workspaceId), eq(searchRecords.kind, "congruences"), eq(models.kind, "eca")))
+      .all();
+    return rows.filter((r): r is EcaCongruenceRecord => r.rule !== null);
+  });
+}

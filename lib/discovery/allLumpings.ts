@@ -5,11 +5,11 @@ import { scaleEntries, sparseFromMatrix } from "./markov/sparseChain";
 export const MAX_ENUMERATED_STATES = 10;
 
 /**
- * Every strongly lumpable partition of a small chain, by enumerating all set partitions as restricted growth
+ * Every strongly (or, with `exact`, exactly) lumpable partition of a small chain, by enumerating all set partitions as restricted growth
  * strings (each already in canonical form), coarsest first. Kept plain on purpose: it is the reference the fast
  * refinement is tested against, and a way to show newcomers the whole lattice.
  */
-export function allLumpings(chain: Matrix): number[][] {
+export function allLumpings(chain: Matrix, options: { exact?: boolean } = {}): number[][] {
   const n = chain.length;
   if (n < 1 || n > MAX_ENUMERATED_STATES) throw new MatrixInputError("matrix", `allLumpings enumerates chains of 1..${MAX_ENUMERATED_STATES} states, got ${n}`);
   const sparse = sparseFromMatrix(chain);
@@ -17,7 +17,11 @@ export function allLumpings(chain: Matrix): number[][] {
   // dense integer numerators over a common denominator, so that equal sums are equal integers
   const num: (number | bigint)[][] = Array.from({ length: n }, () => new Array(n).fill(scaled.kind === "number" ? 0 : 0n));
   for (let i = 0; i < n; i++)
-    for (let e = sparse.rowStart[i]; e < sparse.rowStart[i + 1]; e++) num[i][sparse.col[e]] = scaled.num[e];
+    for (let e = sparse.rowStart[i]; e < sparse.rowStart[i + 1]; e++) {
+      // exact lumpability is strong lumpability's condition on the columns (Buchholz 1994; DOMAIN.md §2b)
+      if (options.exact) num[sparse.col[e]][i] = scaled.num[e];
+      else num[i][sparse.col[e]] = scaled.num[e];
+    }
   const found: number[][] = [];
   const rgs = new Array<number>(n).fill(0);
   const visit = (i: number, blocks: number): void => {

@@ -80,4 +80,12 @@ describe("searchBinaryProjections", () => {
     expect(() => searchBinaryProjections({ rule: 30, block: 2, steps: 5 })).toThrow(/steps/);
     expect(() => searchBinaryProjections({ rule: 30, block: 2, steps: 0 })).toThrow(/steps/);
   });
+
+  it("refuses table entries that are not whole numbers instead of coercing them (\"1\", \"x\", 1.5, -1)", () => {
+    const rule90 = Array.from({ length: 8 }, (_, i) => (90 >> i) & 1);
+    for (const bad of ["1", "x", 1.5, -1]) {
+      const table = [...rule90.slice(0, 3), bad, ...rule90.slice(4)] as number[];
+      expect(() => searchBinaryProjections({ table: { k: 2, r: 1, table }, block: 2 })).toThrow(`table: entry 3 is ${JSON.stringify(bad)}`);
+    }
+  });
 });

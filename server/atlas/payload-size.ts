@@ -21,6 +21,12 @@ export type PayloadSize = {
   block: number;
   k: number;
   r: number;
+  /**
+   * Largest `k` inside a `source` (a certificate's source model), or null when there is none: the windows of a
+   * CA check are words over the source's alphabet. A congruence onto 31 classes has a target with k = 31, yet
+   * its check at block 5 reads 2^15 windows, not 31^15.
+   */
+  sourceK: number | null;
   /** Deepest nesting of arrays and objects. */
   depth: number;
 };
@@ -39,10 +45,11 @@ export const SERVER_BOUNDS = {
 } as const;
 
 const NUMERIC = /^[+-]?[0-9][0-9./eE+-]*$/;
+const IN_SOURCE = /(^|\.)source\./;
 
 /** One pass over the value (iterative, so depth cannot overflow the stack). */
 export function payloadSize(value: unknown): PayloadSize {
-  const size: PayloadSize = { maxDigits: 0, maxDigitsAt: "", reduceCost: 0, states: 0, steps: 1, maxSteps: 1, block: 1, k: 2, r: 1, depth: 0 };
+  const size: PayloadSize = { maxDigits: 0, maxDigitsAt: "", reduceCost: 0, states: 0, steps: 1, maxSteps: 1, block: 1, k: 2, r: 1, sourceK: null, depth: 0 };
   const stack: { v: unknown; path: string; depth: number; key: string }[] = [{ v: value, path: "", depth: 0, key: "" }];
   while (stack.length > 0) {
     const { v, path, depth, key } = stack.pop()!;
@@ -60,6 +67,7 @@ export function payloadSize(value: unknown): PayloadSize {
       if (key === "steps" || key === "block" || key === "k" || key === "r") {
         const field = key === "steps" ? "maxSteps" : key;
         size[field] = Math.max(size[field], v);
+        if (key === "k" && IN_SOURCE.test(path)) size.sourceK = Math.max(size.sourceK ?? 2, v);
       }
       continue;
     }
@@ -67,6 +75,8 @@ export function payloadSize(value: unknown): PayloadSize {
     size.depth = Math.max(size.depth, depth + 1);
     if (depth + 1 > SERVER_BOUNDS.maxNesting) continue;
     if (key === "matrix" && Array.isArray(v)) size.states = Math.max(size.states, v.length);
+    // a source without a `k` (an ECA) is binary
+    if (key === "source") size.sourceK = Math.max(size.sourceK ?? 2, 2);
     for (const [k, child] of Object.entries(v)) stack.push({ v: child, path: path ? `${path}.${k}` : k, depth: depth + 1, key: k });
   }
   return size;
@@ -124,9 +134,10 @@ export function exceededServerBound(size: PayloadSize, sizes: Limits, field: str
  * over T steps reads (2⌈rT/N⌉+1) block symbols of k^N states each (DOMAIN.md §2). An over-estimate
  * when the fields belong to different models, never an under-estimate.
  */
-export function caWindows({ k, r, block, maxSteps }: Pick<PayloadSize, "k" | "r" | "block" | "maxSteps">): number {
+export function caWindows({ k, sourceK, r, block, maxSteps }: Pick<PayloadSize, "k" | "sourceK" | "r" | "block" | "maxSteps">): number {
   const radius = Math.ceil((r * maxSteps) / block);
-  return k ** (block * (2 * radius + 1));
+  // every other model's own table is k^(2r+1) entries, listed in the payload itself; the core bounds each one again
+  return Math.max((sourceK ?? k) ** (block * (2 * radius + 1)), k ** (2 * r + 1));
 }
 
 /** Small checks may take the fast lane, which large ones never enter. */

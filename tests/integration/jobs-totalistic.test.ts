@@ -37,6 +37,8 @@ describe("the totalistic-atlas job", () => {
     // code 0 sends every neighbourhood to 0, so every partition of the three states is a congruence (by hand):
     // {0,1}{2}, {0,2}{1}, {0}{1,2} at block 1
     const model = await getModel({ workspaceId: ws, idOrAddress: address(0) });
+    // browsable: each code is listed and searchable under its own name, not 2,187 times "CA k=3, r=1"
+    expect([model!.name, (await getModel({ workspaceId: ws, idOrAddress: address(40) }))!.name]).toEqual(["Three-state totalistic code 0", "Three-state totalistic code 40"]);
     const [record] = await listSearchRecords({ workspaceId: ws, modelId: model!.id });
     const outcome = JSON.parse(record.outcome) as { congruences: { block: number; partition: number[] }[] };
     expect(outcome.congruences.filter((c) => c.block === 1).map((c) => c.partition.join("")).sort()).toEqual(["001", "010", "011"]);

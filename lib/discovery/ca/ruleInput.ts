@@ -23,7 +23,7 @@ export function resolveRule(input: RuleOption): ResolvedRule {
     input.rule !== undefined
       ? ecaTable(input.rule)
       : input.table
-        ? { k: input.table.k, r: input.table.r, table: Uint8Array.from(input.table.table) }
+        ? { k: input.table.k, r: input.table.r, table: tableEntries(input.table.table) }
         : (() => {
             throw new CaInputError("rule", "a rule number or a rule table is required");
           })();
@@ -37,6 +37,17 @@ export function resolveRule(input: RuleOption): ResolvedRule {
       return eca !== null ? ecaSupercell(eca, block) : generalSupercell(table.k, table.table, block);
     },
   };
+}
+
+/** The table as bytes, refusing what Uint8Array.from would silently coerce ("1" → 1, "x" → 0, 1.5 → 1, −1 → 255). */
+function tableEntries(entries: ArrayLike<unknown>): Uint8Array {
+  const out = new Uint8Array(entries.length);
+  for (let i = 0; i < entries.length; i++) {
+    const v = entries[i];
+    if (typeof v !== "number" || !Number.isInteger(v) || v < 0 || v > 255) throw new CaInputError("table", `entry ${i} is ${JSON.stringify(v)}, not a symbol (a whole number 0..k−1)`);
+    out[i] = v;
+  }
+  return out;
 }
 
 /** Steps per coarse step: 1 … 2N (DOMAIN.md §2b); defaults to the block size. */

@@ -1,7 +1,7 @@
 // Runs in a job worker thread: lib/ only.
 import { z } from "zod";
 import { coverageRecord, searchBinaryProjections, searchCongruences, type PartitionAtlasRow, type ProjectionAtlasRow, type Coverage } from "@/lib/discovery";
-import { partitionFindings, projectionFindings, type CaFindings } from "./ca-findings.compute";
+import { partitionFindings, projectionFindings, stepsProjectionFindings, type CaFindings, type StepsProjectionRow } from "./ca-findings.compute";
 import type { ComputeContext } from "./types";
 
 export const SearchProjectionParams = z
@@ -10,8 +10,12 @@ export const SearchProjectionParams = z
     minBlock: z.number().int().min(2).max(6).default(2),
     maxBlock: z.number().int().min(2).max(6).default(4),
     search: z.enum(["projections", "partitions", "both"]).default("both"),
+    steps: z.number().int().min(1).max(12).optional().meta({ description: "Steps T per coarse step at every block size (1 ≤ T ≤ 2N; DOMAIN.md §2b); absent: T = N." }),
   })
-  .refine((p) => p.minBlock <= p.maxBlock, { path: ["maxBlock"], message: "maxBlock must be at least minBlock" });
+  .refine((p) => p.minBlock <= p.maxBlock, { path: ["maxBlock"], message: "maxBlock must be at least minBlock" })
+  .refine((p) => p.steps === undefined || p.steps <= 2 * p.minBlock, { path: ["steps"], message: "steps must be at most 2N for the smallest block size" })
+  // a radius-2 coarse rule's check reads (2^N)^5 windows: N = 4 is 2^20, within the checker's bounds
+  .refine((p) => p.steps === undefined || p.maxBlock <= 4, { path: ["maxBlock"], message: "maxBlock is at most 4 when steps is given" });
 export type SearchProjectionParams = z.infer<typeof SearchProjectionParams>;
 
 export type SearchProjectionOutput = CaFindings & { stopped: "cancelled" | "deadline" | null; coverage: Coverage[] };
@@ -30,7 +34,24 @@ export function compute(params: SearchProjectionParams, context: ComputeContext)
   let done = 0;
   const progress = (w: number) => (f: number, item: string) => context.onProgress((done + f * w) / total, item);
 
-  if (wants("projections")) {
+  if (wants("projections") && params.steps !== undefined) {
+    const rows: StepsProjectionRow[] = [];
+    const covered: number[] = [];
+    for (const [i, block] of blocks.entries()) {
+      const search = searchBinaryProjections({ rule: params.rule, block, steps: params.steps, signal: context.signal, onProgress: progress(weight[i]) });
+      done += weight[i];
+      if (search.stopped) {
+        out.stopped = search.stopped;
+        break;
+      }
+      covered.push(block);
+      rows.push({ block, targets: search.targets });
+    }
+    const coverage = coverageRecord("projections", [params.rule], covered, out.stopped, out.stopped ? `rule ${params.rule}` : null);
+    out.coverage.push(coverage);
+    stepsProjectionFindings(params.rule, params.steps, rows, coverage, out);
+    if (out.stopped) return out;
+  } else if (wants("projections")) {
     const rows: ProjectionAtlasRow[] = [];
     const covered: number[] = [];
     for (const [i, block] of blocks.entries()) {
@@ -54,7 +75,7 @@ export function compute(params: SearchProjectionParams, context: ComputeContext)
     let row: PartitionAtlasRow = { rule: params.rule, symmetryClass: -1, block: null, classes: null, partition: null, target: null, maximal: false };
     const covered: number[] = [];
     for (const [i, block] of blocks.entries()) {
-      const search = searchCongruences({ rule: params.rule, block, signal: context.signal, onProgress: progress(weight[i]) });
+      const search = searchCongruences({ rule: params.rule, block, steps: params.steps, signal: context.signal, onProgress: progress(weight[i]) });
       done += weight[i];
       if (search.stopped) {
         out.stopped = search.stopped;
@@ -69,7 +90,7 @@ export function compute(params: SearchProjectionParams, context: ComputeContext)
     }
     const coverage = coverageRecord("partitions", [params.rule], covered, out.stopped, out.stopped ? `rule ${params.rule}` : null);
     out.coverage.push(coverage);
-    if (covered.length > 0) partitionFindings([row], params.minBlock, coverage, out);
+    if (covered.length > 0) partitionFindings([row], params.minBlock, coverage, out, params.steps);
   }
   return out;
 }

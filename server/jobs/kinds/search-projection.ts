@@ -15,7 +15,7 @@ export const searchProjectionKind = defineJobKind({
   example: { rule: 110, minBlock: 2, maxBlock: 4, search: "both" },
   describe: (params) => {
     const p = SearchProjectionParams.safeParse(params);
-    return p.success ? `rule ${p.data.rule}, ${p.data.search}, block ${p.data.minBlock}–${p.data.maxBlock}` : "";
+    return p.success ? `rule ${p.data.rule}, ${p.data.search}, block ${p.data.minBlock}–${p.data.maxBlock}${p.data.steps !== undefined ? `, ${p.data.steps} steps` : ""}` : "";
   },
   async persist({ job, output, onProgress, signal }) {
     const result = output as SearchProjectionOutput;

@@ -5,6 +5,15 @@ import { totalisticTable } from "@/lib/discovery";
 import { defineJobKind } from "./types";
 import { TotalisticAtlasParams, type TotalisticAtlasOutput } from "./totalistic-atlas.compute";
 
+function totalisticModel(code: number) {
+  return { kind: "ca", k: 3, r: 1, table: Array.from(totalisticTable(code).table) };
+}
+
+/** The name the atlas lists and searches (README, "Three-state totalistic rules", for the numbering). */
+export function totalisticName(code: number): string {
+  return `Three-state totalistic code ${code}`;
+}
+
 /**
  * The three-state totalistic atlas (DOMAIN.md §2b numbering): proper congruences of the 2,187 codes at block sizes 1
  * and 2, every one submitted as a certificate through the atlas's verified path and one search record per code.
@@ -35,6 +44,8 @@ export const totalisticAtlasKind = defineJobKind({
         break;
       }
       if (i % 32 === 0) onProgress(i / codes.length, `saving code ${code}`);
+      // named before its certificates store it, else all 2,187 codes would share the default name "CA k=3, r=1"
+      const { model } = await ensureModel({ workspaceId: job.workspaceId, userId, model: totalisticModel(code), naming: { name: totalisticName(code) } });
       for (const finding of result.findings.filter((f) => f.code === code)) {
         try {
           const saved = await submitCertificate({ workspaceId: job.workspaceId, userId, certificate: finding.certificate });
@@ -46,8 +57,6 @@ export const totalisticAtlasKind = defineJobKind({
       }
       const record = result.records.find((r) => r.code === code);
       if (!record) continue;
-      const table = totalisticTable(code);
-      const { model } = await ensureModel({ workspaceId: job.workspaceId, userId, model: { kind: "ca", k: 3, r: 1, table: Array.from(table.table) } });
       await createSearchRecord({
         workspaceId: job.workspaceId,
         modelId: model.id,
