@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { evolveCells, toDigits } from "@/lib/ca";
 import type { ConeWords } from "./lightCone";
 import { SlicedWindowCheck } from "./slicedWindowCheck";
 
@@ -12,23 +13,13 @@ function seeded(seed: number): () => number {
   };
 }
 
-/** The centre cell after `steps` applications of the rule to a row of cells (leftmost first), applied cell by cell. */
-function evolveCentre(rule: Uint8Array, r: number, cells: number[], steps: number): number {
-  let row = cells;
-  for (let s = 0; s < steps; s++) {
-    const next: number[] = [];
-    for (let i = 0; i + 2 * r < row.length; i++) {
-      let idx = 0;
-      for (let d = 0; d <= 2 * r; d++) idx = idx * 2 + row[i + d];
-      next.push(rule[idx]);
-    }
-    row = next;
-  }
-  return row[0];
+/** The centre cell after `steps` applications of the rule to a row of cells, by the core's plain evaluation (lib/ca). */
+function evolveCentre(rule: Uint8Array, r: number, cells: ArrayLike<number>, steps: number): number {
+  return evolveCells({ k: 2, r, table: rule }, cells, steps)[0];
 }
 
-function digits(x: number, count: number): number[] {
-  return Array.from({ length: count }, (_, i) => (x >>> (count - 1 - i)) & 1);
+function digits(x: number, count: number): Uint8Array {
+  return toDigits(x, 2, count);
 }
 
 /** Level `steps` of the light cone, evolved cell by cell, read a word at a time as the check reads it. */

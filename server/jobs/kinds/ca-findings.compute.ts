@@ -21,6 +21,19 @@ export type CaFindings = { findings: Finding[]; records: RecordDraft[]; skipped:
 
 const ecaAddress = (rule: number) => modelAddress(canonicalModel({ kind: "eca", rule }));
 
+/** The search record of a complete binary-projection search of one rule: what was covered, and what it found. */
+function projectionRecord(rule: number, coverage: Coverage, steps: number | "T = N", targetKinds: string[], outcome: RecordDraft["outcome"]): RecordDraft {
+  return {
+    rule,
+    kind: "binary-projections",
+    maxBlock: Math.max(...coverage.blocks),
+    algorithm: coverage.algorithm,
+    algorithmVersion: coverage.version,
+    coverage: { rule, blocks: coverage.blocks, steps, coarseAlphabet: 2, targetKinds, exhaustive: true },
+    outcome,
+  };
+}
+
 function certify(rule: number, block: number, projection: string | number[], what: string, out: CaFindings, steps = block): void {
   const built = certifyProjection({ rule, block, steps, projection });
   // The search and the checker are separate programs; a disagreement is reported, never stored.
@@ -45,18 +58,12 @@ export function projectionFindings(rows: ProjectionAtlasRow[], rules: number[], 
   if (coverage.blocks.length === 0) return;
   for (const rule of rules) {
     const found = [...(targets.get(rule) ?? new Map<number, { block: number; count: string }[]>()).entries()].sort((a, b) => a[0] - b[0]);
-    out.records.push({
-      rule,
-      kind: "binary-projections",
-      maxBlock: Math.max(...coverage.blocks),
-      algorithm: coverage.algorithm,
-      algorithmVersion: coverage.version,
-      coverage: { rule, blocks: coverage.blocks, steps: "T = N", coarseAlphabet: 2, targetKinds: ["eca"], exhaustive: true },
-      outcome: {
+    out.records.push(
+      projectionRecord(rule, coverage, "T = N", ["eca"], {
         targets: found.map(([target]) => ecaAddress(target)),
         byTarget: found.map(([target, where]) => ({ target, blocks: where })),
-      },
-    });
+      }),
+    );
   }
 }
 
@@ -115,13 +122,5 @@ export function stepsProjectionFindings(rule: number, steps: number, rows: Steps
       byTarget.set(address, had);
     }
   if (coverage.blocks.length === 0) return;
-  out.records.push({
-    rule,
-    kind: "binary-projections",
-    maxBlock: Math.max(...coverage.blocks),
-    algorithm: coverage.algorithm,
-    algorithmVersion: coverage.version,
-    coverage: { rule, blocks: coverage.blocks, steps, coarseAlphabet: 2, targetKinds: [], exhaustive: true },
-    outcome: { targets: [...byTarget.keys()], byTarget: [...byTarget.values()] },
-  });
+  out.records.push(projectionRecord(rule, coverage, steps, [], { targets: [...byTarget.keys()], byTarget: [...byTarget.values()] }));
 }
