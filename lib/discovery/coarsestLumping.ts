@@ -101,5 +101,7 @@ export function exactLumpedChain(chain: SparseChain, partition: readonly number[
       const j = chain.col[e];
       if (isFirst[j]) into[partition[i]][partition[j]] = add(into[partition[i]][partition[j]], chain.value[e]);
     }
-  return into.map((row, I) => row.map((sum, J) => mul(sum, rational(size[J], size[I]))));
+  // only the non-zero sums are scaled: a lumped chain of 1000 blocks has a million entries, nearly all zero, and
+  // scaling each by a rational cost as much as the refinement itself
+  return into.map((row, I) => row.map((sum, J) => (sum.num === 0n ? ZERO : mul(sum, rational(size[J], size[I])))));
 }
