@@ -9,16 +9,7 @@
  */
 import { coarsestLumping, type SparseChain } from "@/lib/discovery";
 import { rational, type Rational } from "@/lib/rational";
-
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from "@/lib/random";
 
 /** Five positive weights k/60 summing to 1. */
 function fiveWeights(random: () => number): number[] {
@@ -29,7 +20,7 @@ function fiveWeights(random: () => number): number[] {
 }
 
 function liftedLine(blocks: number, perBlock: number, seed: number): { chain: SparseChain; labels: string[] } {
-  const random = seeded(seed);
+  const random = seededRandom(seed);
   const n = blocks * perBlock;
   const rowStart = new Int32Array(n + 1);
   const col: number[] = [];

@@ -15,16 +15,7 @@
  */
 import { supercellTable, type RuleTable } from "@/lib/ca";
 import { searchBinaryProjections } from "@/lib/discovery";
-
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { seededRandom } from "@/lib/random";
 
 /** Process CPU seconds since `start`. */
 function cpuSince(start: NodeJS.CpuUsage): number {
@@ -111,7 +102,7 @@ function sharedTableCount(t: RuleTable, N: number, T: number): number {
 
 export async function main(args: string[]): Promise<void> {
   const quick = args.includes("--quick");
-  const random = seeded(42);
+  const random = seededRandom(42);
   const rules: RuleTable[] = Array.from({ length: quick ? 3 : 10 }, () => ({ k: 2, r: 2, table: Uint8Array.from({ length: 32 }, () => (random() < 0.5 ? 0 : 1)) }));
   // rule 90's 2-step iterate x₋₂ XOR x₂ (DOMAIN.md §2b) has many projections: include it
   rules.push({ k: 2, r: 2, table: Uint8Array.from({ length: 32 }, (_, i) => ((i >> 4) & 1) ^ (i & 1)) });

@@ -56,14 +56,4 @@ export function isCongruence(F: ArrayLike<number>, n: number, partition: number[
   return true;
 }
 
-/** A small deterministic generator (mulberry32, common practice) so failures reproduce. */
-export function seededRandom(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { seededRandom } from "@/lib/random";

@@ -3,6 +3,7 @@ import { parseRational, rational, type Rational } from "@/lib/rational";
 import { checkExactLumping } from "./checkExactLumping";
 import { checkExactLumpingSparse, type SparseRows } from "./checkExactLumpingSparse";
 import { formatMatrix, MatrixInputError, type Matrix } from "./matrix";
+import { seededRandom } from "@/lib/random";
 
 const q = (rows: string[][]): Matrix => rows.map((r) => r.map(parseRational));
 
@@ -29,16 +30,6 @@ const HAND = q([
   ["1/3", "1/3", "1/3"],
   ["1/6", "5/12", "5/12"],
 ]);
-
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** A random chain built exactly lumpable on `blocks` (block sums into each column of a block equal), zeros included. */
 function randomChain(random: () => number, blocks: number[], lumpable: boolean): Matrix {
@@ -79,7 +70,7 @@ describe("checkExactLumpingSparse", () => {
   });
 
   it("agrees with the dense checker on random chains and partitions, lumped chain included", () => {
-    const random = seeded(31);
+    const random = seededRandom(31);
     let holds = 0;
     for (let trial = 0; trial < 60; trial++) {
       const n = 2 + Math.floor(random() * 7);

@@ -12,7 +12,7 @@
 import type { RuleTable } from "@/lib/ca";
 import { LightCone } from "./lightCone";
 import { SlicedWindowCheck } from "./slicedWindowCheck";
-import { MAX_WIDE_STATES, type WideProjectionClass } from "./wideProjectionSolver";
+import { MAX_WIDE_STATES, recordSolution, type WideProjectionClass } from "./wideProjectionSolver";
 
 /** Widest window (in cells) and light cone (in cells) the on-demand search handles; beyond them the table solver is used. */
 export const MAX_ON_DEMAND_WINDOW_CELLS = 30;
@@ -214,16 +214,19 @@ class OnDemandSearch {
       for (let shift = (width - 1) * block; shift >= block; shift -= block) prefix = (prefix << 1) | p[(high >>> shift) & mask];
       prefix <<= 1;
       for (let x = 0; x < n; x++) {
-        const value = p[this.image(high | x)];
-        const c = prefix | p[x];
-        const gc = g[c];
-        if (gc !== value) {
-          if (gc >= 0) return false;
-          g[c] = value;
-          trail.push(G_SET, c);
-        }
+        if (!this.meet(prefix | p[x], p[this.image(high | x)])) return false;
       }
     }
+    return true;
+  }
+
+  /** A window of a complete assignment: bit c of g must be `value` (set here, on the trail, when unset). */
+  private meet(c: number, value: number): boolean {
+    const gc = this.g[c];
+    if (gc === value) return true;
+    if (gc >= 0) return false;
+    this.g[c] = value;
+    this.trail.push(G_SET, c);
     return true;
   }
 
@@ -232,20 +235,14 @@ class OnDemandSearch {
    * together in counting order (they share blocks), so a spread sample meets one sooner.
    */
   checkSample(count: number): boolean {
-    const { p, g, block, width, trail } = this;
+    const { p, block, width } = this;
     const mask = this.n - 1;
     const last = 2 ** (width * block) - 1;
     for (let i = 0; i < count; i++) {
       const w = Math.imul(i, SAMPLE_STRIDE) & last;
       let c = 0;
       for (let shift = (width - 1) * block; shift >= 0; shift -= block) c = (c << 1) | p[(w >>> shift) & mask];
-      const value = p[this.image(w)];
-      const gc = g[c];
-      if (gc !== value) {
-        if (gc >= 0) return false;
-        g[c] = value;
-        trail.push(G_SET, c);
-      }
+      if (!this.meet(c, p[this.image(w)])) return false;
     }
     return true;
   }
@@ -322,10 +319,7 @@ class OnDemandSearch {
   }
 
   private record(): void {
-    const key = this.g.join("");
-    const entry = this.found.get(key);
-    if (entry) entry.count++;
-    else this.found.set(key, { table: Uint8Array.from(this.g), count: 1n, example: Uint8Array.from(this.p) });
+    recordSolution(this.found, this.g, this.p);
   }
 }
 

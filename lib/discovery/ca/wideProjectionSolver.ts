@@ -20,6 +20,14 @@ export interface WideProjectionClass {
   example: Uint8Array;
 }
 
+/** Counts a complete projection p under its coarse table g (a copy of both is kept for the first of each g). */
+export function recordSolution(found: Map<string, WideProjectionClass>, g: Int8Array, p: Int8Array): void {
+  const key = g.join("");
+  const entry = found.get(key);
+  if (entry) entry.count++;
+  else found.set(key, { table: Uint8Array.from(g), count: 1n, example: Uint8Array.from(p) });
+}
+
 interface WideProblem {
   n: number;
   width: number;
@@ -192,10 +200,7 @@ class WideSearch {
   }
 
   private record(): void {
-    const key = this.g.join("");
-    const entry = this.found.get(key);
-    if (entry) entry.count++;
-    else this.found.set(key, { table: Uint8Array.from(this.g), count: 1n, example: Uint8Array.from(this.p) });
+    recordSolution(this.found, this.g, this.p);
   }
 }
 

@@ -6,6 +6,7 @@
  */
 import { rational, type Rational } from "@/lib/rational";
 import type { SparseChain } from "./sparseChain";
+import { seededRandom } from "@/lib/random";
 
 /** A permutation-mixture chain's parameters. */
 export interface PermutationMixtureSpec {
@@ -14,21 +15,11 @@ export interface PermutationMixtureSpec {
   seed: number;
 }
 
-function seeded(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = Math.imul(a ^ (a >>> 15), a | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-
 const SHIFTS = [1, 2, 3, 5, 8, 13, 21, 34, 55, 89];
 
 /** Entries of the permutation mixture: for each state, ten (column, weight k/55) pairs, columns ascending. */
 export function permutationMixture({ groups, members, seed }: PermutationMixtureSpec): SparseChain {
-  const random = seeded(seed);
+  const random = seededRandom(seed);
   const n = groups * members;
   const per = SHIFTS.length;
   const rowStart = Int32Array.from({ length: n + 1 }, (_, i) => i * per);
