@@ -91,12 +91,14 @@ describe("the hierarchy of the full ECA atlas", () => {
 
   it("picks out a class reached with the keyboard", async () => {
     const page = await openHierarchy(1366);
-    const first = page.locator(".react-flow__node").first();
+    // React Flow makes its nodes focusable once it has mounted them: wait for that before tabbing.
+    const first = page.locator('.react-flow__node[tabindex="0"]').first();
+    await first.waitFor();
     await first.focus();
     await page.keyboard.press("Tab");
-    const focusedLabel = await page.evaluate(() => document.activeElement?.closest(".react-flow__node")?.querySelector("span")?.textContent ?? "");
-    expect(focusedLabel).toMatch(/^class \d+$/);
-    await page.getByText(new RegExp(`^${focusedLabel}: \\d+ class-to-class edges picked out`)).waitFor();
+    const focusedLabel = () => page.evaluate(() => document.activeElement?.closest(".react-flow__node")?.querySelector("span")?.textContent ?? "");
+    await expect.poll(focusedLabel, { timeout: 10_000 }).toMatch(/^class \d+$/);
+    await page.getByText(new RegExp(`^${await focusedLabel()}: \\d+ class-to-class edges picked out`)).waitFor();
     await page.context().close();
   });
 
